@@ -1,0 +1,75 @@
+package org.loopledger.plot;
+
+import org.knowm.xchart.XYChart;
+import org.loopledger.frf.Frf;
+
+import java.util.ArrayList;
+import java.util.List;
+
+/**
+ * Bode plot: magnitude (dB) and phase (degrees) over frequency (Hz, log axis), several overlays,
+ * optional point markers (crossovers, margins). Built with {@link #create()}, then {@link #figure()}.
+ */
+public final class BodePlot {
+    private record Curve(String label, Frf frf) {}
+
+    private record Mark(String label, double hz, double magDb, double phaseDeg) {}
+
+    private final List<Curve> curves = new ArrayList<>();
+    private final List<Mark> marks = new ArrayList<>();
+    private String title = "";
+    private int widthPx = 640;
+    private int panelHeightPx = 260;
+
+    private BodePlot() {}
+
+    public static BodePlot create() { return new BodePlot(); }
+
+    /** Shortcut: a Bode figure of one FRF. */
+    public static Figure of(String label, Frf frf) { return create().add(label, frf).figure(); }
+
+    public BodePlot title(String title) { this.title = title; return this; }
+
+    public BodePlot sizePx(int widthPx, int panelHeightPx) {
+        if (widthPx < 200 || panelHeightPx < 120) throw new IllegalArgumentException("a Bode panel needs at least 200x120 px, got " + widthPx + "x" + panelHeightPx);
+        this.widthPx = widthPx;
+        this.panelHeightPx = panelHeightPx;
+        return this;
+    }
+
+    /** Adds a curve. */
+    public BodePlot add(String label, Frf frf) { curves.add(new Curve(label, frf)); return this; }
+
+    /** Adds a marker drawn on both panels at {@code hz}. */
+    public BodePlot mark(String label, double hz, double magDb, double phaseDeg) {
+        marks.add(new Mark(label, hz, magDb, phaseDeg));
+        return this;
+    }
+
+    public Figure figure() {
+        if (curves.isEmpty()) throw new IllegalArgumentException("a Bode plot needs at least one curve: call add(label, frf)");
+        XYChart mag = ChartStyle.newChart(widthPx, panelHeightPx, null, "", "Magnitude (dB)");
+        XYChart ph = ChartStyle.newChart(widthPx, panelHeightPx, null, "Frequency (Hz)", "Phase (deg)");
+        mag.getStyler().setXAxisLogarithmic(true);
+        ph.getStyler().setXAxisLogarithmic(true);
+        ph.getStyler().setLegendVisible(false);
+        double lo = Double.POSITIVE_INFINITY, hi = 0;
+        for (int i = 0; i < curves.size(); i++) {
+            Curve c = curves.get(i);
+            double[] f = c.frf().frequencyHz();
+            lo = Math.min(lo, f[0]);
+            hi = Math.max(hi, f[f.length - 1]);
+            double[][] m = Decimation.forPanel(f, c.frf().magnitudeDb(), true, widthPx, panelHeightPx);
+            double[][] p = Decimation.forPanel(f, PlotPhase.forDisplayDeg(c.frf().phaseDegUnwrapped()), true, widthPx, panelHeightPx);
+            ChartStyle.curve(mag, c.label(), m[0], m[1], i);
+            ChartStyle.curve(ph, c.label(), p[0], p[1], i);
+        }
+        ChartStyle.reference(mag, "0 dB", new double[] {lo, hi}, new double[] {0, 0}, Palette.REFERENCE, true);
+        ChartStyle.reference(ph, "-180 deg", new double[] {lo, hi}, new double[] {-180, -180}, Palette.REFERENCE, true);
+        for (Mark k : marks) {
+            ChartStyle.markers(mag, k.label(), new double[] {k.hz()}, new double[] {k.magDb()}, Palette.BRICK, false);
+            ChartStyle.markers(ph, k.label(), new double[] {k.hz()}, new double[] {k.phaseDeg()}, Palette.BRICK, false);
+        }
+        return Figure.column(title, List.of(mag, ph));
+    }
+}

@@ -1,0 +1,88 @@
+package org.loopledger.plot;
+
+import java.util.ArrayDeque;
+
+
+/**
+ * Drops points of a curve that a reader cannot see: Ramer–Douglas–Peucker simplification in screen
+ * coordinates (U. Ramer, "An iterative procedure for the polygonal approximation of plane curves",
+ * Computer Graphics and Image Processing 1(3), 1972). Keeps plots small where curves are smooth and
+ * keeps every point where they are not (resonances).
+ */
+final class Decimation {
+    private Decimation() {}
+
+    /**
+     * Indices of the points to keep (ascending, first and last always kept), such that no dropped point
+     * lies farther than {@code tolerance} from the simplified polyline, in the units of {@code x}, {@code y}.
+     */
+    static int[] keep(double[] x, double[] y, double tolerance) {
+        int n = x.length;
+        if (n <= 2) {
+            int[] all = new int[n];
+            for (int i = 0; i < n; i++) all[i] = i;
+            return all;
+        }
+        boolean[] kept = new boolean[n];
+        kept[0] = kept[n - 1] = true;
+        ArrayDeque<int[]> stack = new ArrayDeque<>();
+        stack.push(new int[] {0, n - 1});
+        while (!stack.isEmpty()) {
+            int[] seg = stack.pop();
+            int a = seg[0], b = seg[1];
+            double dx = x[b] - x[a], dy = y[b] - y[a];
+            double len = Math.hypot(dx, dy);
+            double worst = -1;
+            int idx = -1;
+            for (int i = a + 1; i < b; i++) {
+                double d = len == 0 ? Math.hypot(x[i] - x[a], y[i] - y[a]) : Math.abs(dy * (x[i] - x[a]) - dx * (y[i] - y[a])) / len;
+                if (!Double.isFinite(d)) d = Double.MAX_VALUE;
+                if (d > worst) { worst = d; idx = i; }
+            }
+            if (idx >= 0 && worst > tolerance) {
+                kept[idx] = true;
+                stack.push(new int[] {a, idx});
+                stack.push(new int[] {idx, b});
+            }
+        }
+        int count = 0;
+        for (boolean k : kept) if (k) count++;
+        int[] r = new int[count];
+        for (int i = 0, j = 0; i < n; i++) if (kept[i]) r[j++] = i;
+        return r;
+    }
+
+    /** The values at the given indices. */
+    static double[] pick(double[] v, int[] idx) {
+        double[] r = new double[idx.length];
+        for (int i = 0; i < idx.length; i++) r[i] = v[idx[i]];
+        return r;
+    }
+
+    /**
+     * Simplifies (x, y) for a panel of the given pixel size and data ranges; log x when {@code logX}.
+     * Tolerance 0.25 px: below what anti-aliased rendering shows.
+     */
+    static double[][] forPanel(double[] x, double[] y, boolean logX, double widthPx, double heightPx) {
+        double[] sx = new double[x.length], sy = new double[y.length];
+        double[] xr = range(x, logX), yr = range(y, false);
+        for (int i = 0; i < x.length; i++) {
+            double xv = logX ? Math.log10(x[i]) : x[i];
+            sx[i] = (xv - xr[0]) / (xr[1] - xr[0]) * widthPx;
+            sy[i] = (y[i] - yr[0]) / (yr[1] - yr[0]) * heightPx;
+        }
+        int[] idx = keep(sx, sy, 0.25);
+        return new double[][] {pick(x, idx), pick(y, idx)};
+    }
+
+    private static double[] range(double[] v, boolean log) {
+        double lo = Double.POSITIVE_INFINITY, hi = Double.NEGATIVE_INFINITY;
+        for (double d : v) {
+            double t = log ? Math.log10(d) : d;
+            if (Double.isFinite(t)) { lo = Math.min(lo, t); hi = Math.max(hi, t); }
+        }
+        if (!(hi > lo)) { lo -= 1; hi += 1; }
+        return new double[] {lo, hi};
+    }
+
+}

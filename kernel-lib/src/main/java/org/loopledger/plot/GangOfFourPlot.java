@@ -1,0 +1,31 @@
+package org.loopledger.plot;
+
+import org.knowm.xchart.XYChart;
+import org.loopledger.frf.Frf;
+
+import java.util.List;
+
+/**
+ * The Gang of Four (Åström and Murray, Feedback Systems, 2nd ed., §12.1): magnitudes of S, T, PS and CS
+ * over frequency on a 2x2 grid.
+ */
+public final class GangOfFourPlot {
+    private GangOfFourPlot() {}
+
+    public static Figure of(String title, Frf s, Frf t, Frf ps, Frf cs) {
+        return Figure.grid(title, 2, List.of(
+                panel("S = 1/(1+PC)", s), panel("T = PC/(1+PC)", t),
+                panel("PS = P/(1+PC)", ps), panel("CS = C/(1+PC)", cs)));
+    }
+
+    private static XYChart panel(String name, Frf f) {
+        XYChart c = ChartStyle.newChart(380, 240, name, "Frequency (Hz)", "Magnitude (dB)");
+        c.getStyler().setXAxisLogarithmic(true);
+        c.getStyler().setLegendVisible(false);
+        double[][] d = Decimation.forPanel(f.frequencyHz(), f.magnitudeDb(), true, 380, 240);
+        ChartStyle.curve(c, name, d[0], d[1], 0);
+        double[] hz = f.frequencyHz();
+        ChartStyle.reference(c, "0 dB", new double[] {hz[0], hz[hz.length - 1]}, new double[] {0, 0}, Palette.REFERENCE, true);
+        return c;
+    }
+}
