@@ -1,0 +1,85 @@
+package org.loopledger.display;
+
+import de.erichseifert.vectorgraphics2d.Document;
+import de.erichseifert.vectorgraphics2d.VectorGraphics2D;
+import de.erichseifert.vectorgraphics2d.VectorHints;
+import de.erichseifert.vectorgraphics2d.svg.SVGProcessor;
+import de.erichseifert.vectorgraphics2d.util.PageSize;
+import org.knowm.xchart.BitmapEncoder;
+import org.knowm.xchart.internal.chartpart.Chart;
+import org.knowm.xchart.style.AxesChartStyler;
+
+import java.awt.BasicStroke;
+import java.io.ByteArrayOutputStream;
+import java.io.IOException;
+import java.nio.charset.StandardCharsets;
+import java.util.Base64;
+import java.util.stream.Collectors;
+
+/**
+ * XChart charts as inline SVG (no XML declaration, no DOCTYPE, text kept as {@code <text>} rather than
+ * glyph outlines, grid lines drawn solid because VectorGraphics2D writes every dash as its own shape),
+ * a PNG fallback (base64; nbconvert's HTML export mangles SVG) and a one-line text description.
+ * The output depends only on the chart: no ids, dates or random numbers.
+ */
+public final class ChartRenderer {
+    private ChartRenderer() {}
+
+    public static MimeBundle render(Chart<?, ?> chart) throws IOException {
+        return MimeBundle.builder(describe(chart))
+                .put(MimeBundle.IMAGE_SVG, svg(chart))
+                .put(MimeBundle.IMAGE_PNG, Base64.getEncoder().encodeToString(png(chart)))
+                .build();
+    }
+
+    /** One line: type, title, size and series names. */
+    public static String describe(Chart<?, ?> chart) {
+        String series = chart.getSeriesMap().keySet().stream().map(String::valueOf).collect(Collectors.joining(", "));
+        String title = chart.getTitle() == null || chart.getTitle().isEmpty() ? "" : " \"" + chart.getTitle() + "\"";
+        return chart.getClass().getSimpleName() + title + " (" + chart.getWidth() + "x" + chart.getHeight() + " px"
+                + (series.isEmpty() ? "" : "; series: " + series) + ")";
+    }
+
+    /** The chart as an SVG element, ready to inline into HTML. */
+    public static String svg(Chart<?, ?> chart) throws IOException {
+        return withSolidGrid(chart, () -> {
+            VectorGraphics2D g = new VectorGraphics2D();
+            g.setRenderingHint(VectorHints.KEY_TEXT, VectorHints.VALUE_TEXT_DEFAULT);
+            chart.paint(g, chart.getWidth(), chart.getHeight());
+            Document doc = new SVGProcessor().getDocument(g.getCommands(), new PageSize(0, 0, chart.getWidth(), chart.getHeight()));
+            ByteArrayOutputStream out = new ByteArrayOutputStream(64 * 1024);
+            doc.writeTo(out);
+            return stripProlog(out.toString(StandardCharsets.UTF_8));
+        });
+    }
+
+    /** The chart as PNG bytes. */
+    public static byte[] png(Chart<?, ?> chart) throws IOException {
+        return withSolidGrid(chart, () -> BitmapEncoder.getBitmapBytes(chart, BitmapEncoder.BitmapFormat.PNG));
+    }
+
+    /** Removes the XML declaration and DOCTYPE so the SVG can sit inside HTML or a MIME bundle. */
+    static String stripProlog(String svg) {
+        int start = svg.indexOf("<svg");
+        if (start < 0) throw new IllegalStateException("VectorGraphics2D produced no <svg> element");
+        return svg.substring(start).strip();
+    }
+
+    private interface IoSupplier<T> {
+        T get() throws IOException;
+    }
+
+    private static <T> T withSolidGrid(Chart<?, ?> chart, IoSupplier<T> paint) throws IOException {
+        if (!(chart.getStyler() instanceof AxesChartStyler s) || s.getPlotGridLinesStroke() == null
+                || s.getPlotGridLinesStroke().getDashArray() == null) {
+            return paint.get();
+        }
+        BasicStroke dashed = s.getPlotGridLinesStroke();
+        s.setPlotGridLinesStroke(new BasicStroke(dashed.getLineWidth(), dashed.getEndCap(), dashed.getLineJoin(), dashed.getMiterLimit()));
+        try {
+            return paint.get();
+        } finally {
+            s.setPlotGridLinesStroke(dashed);
+        }
+    }
+}

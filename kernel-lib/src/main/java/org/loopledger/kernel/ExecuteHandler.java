@@ -1,0 +1,89 @@
+package org.loopledger.kernel;
+
+import com.google.gson.JsonArray;
+import com.google.gson.JsonObject;
+import org.loopledger.kernel.protocol.Message;
+import org.loopledger.kernel.session.CellOutput;
+import org.loopledger.kernel.session.CellResult;
+import org.loopledger.kernel.session.CellSession;
+import org.loopledger.kernel.session.OutputListener;
+
+import java.util.function.Supplier;
+
+/**
+ * {@code execute_request} (Jupyter messaging specification 5.3): counts executions when
+ * {@code store_history} is true and {@code silent} false; broadcasts {@code execute_input} and the
+ * outputs only when not silent; replies {@code ok} or {@code error} with ename, evalue and traceback.
+ */
+final class ExecuteHandler {
+    private final Supplier<CellSession> session;
+    private final Iopub iopub;
+    private int executionCount;
+
+    ExecuteHandler(Supplier<CellSession> session, Iopub iopub) {
+        this.session = session;
+        this.iopub = iopub;
+    }
+
+    JsonObject execute(Message request) {
+        JsonObject c = request.content();
+        String code = c.has("code") ? c.get("code").getAsString() : "";
+        boolean silent = c.has("silent") && c.get("silent").getAsBoolean();
+        boolean storeHistory = !silent && (!c.has("store_history") || c.get("store_history").getAsBoolean());
+        if (storeHistory) executionCount++;
+        int count = executionCount;
+        JsonObject parent = request.header();
+        if (!silent) {
+            JsonObject input = new JsonObject();
+            input.addProperty("code", code);
+            input.addProperty("execution_count", count);
+            iopub.publish(parent, "execute_input", input);
+        }
+        OutputListener listener = silent ? OutputListener.IGNORE : o -> broadcast(parent, count, o);
+        CellResult result = session.get().execute(code, "cell [" + count + "]", listener);
+        iopub.flush();
+        JsonObject reply = new JsonObject();
+        reply.addProperty("execution_count", count);
+        result.error().ifPresentOrElse(e -> {
+            reply.addProperty("status", "error");
+            reply.addProperty("ename", e.name());
+            reply.addProperty("evalue", e.value());
+            reply.add("traceback", lines(e));
+        }, () -> {
+            reply.addProperty("status", "ok");
+            reply.add("payload", new JsonArray());
+            reply.add("user_expressions", new JsonObject());
+        });
+        return reply;
+    }
+
+    private void broadcast(JsonObject parent, int count, CellOutput o) {
+        if (o instanceof CellOutput.Stream s) {
+            iopub.stream(parent, s.name(), s.text());
+        } else if (o instanceof CellOutput.Display d) {
+            JsonObject c = new JsonObject();
+            c.add("data", d.bundle().toJsonObject());
+            c.add("metadata", new JsonObject());
+            c.add("transient", new JsonObject());
+            iopub.publish(parent, "display_data", c);
+        } else if (o instanceof CellOutput.Result r) {
+            JsonObject c = new JsonObject();
+            c.addProperty("execution_count", count);
+            c.add("data", r.bundle().toJsonObject());
+            c.add("metadata", new JsonObject());
+            iopub.publish(parent, "execute_result", c);
+        } else if (o instanceof CellOutput.Error e) {
+            JsonObject c = new JsonObject();
+            c.addProperty("ename", e.name());
+            c.addProperty("evalue", e.value());
+            c.add("traceback", lines(e));
+            iopub.publish(parent, "error", c);
+        }
+    }
+
+    private static JsonArray lines(CellOutput.Error e) {
+        JsonArray a = new JsonArray();
+        e.traceback().forEach(a::add);
+        return a;
+    }
+}

@@ -1,0 +1,163 @@
+package org.loopledger.kernel;
+
+import org.loopledger.kernel.protocol.ConnectionInfo;
+import org.loopledger.kernel.protocol.Message;
+import org.loopledger.kernel.protocol.MessageSigner;
+import org.loopledger.kernel.protocol.WireCodec;
+import org.loopledger.kernel.session.CellSession;
+import org.loopledger.kernel.session.SessionOptions;
+import org.zeromq.SocketType;
+import org.zeromq.ZContext;
+import org.zeromq.ZMQ;
+
+import java.util.Optional;
+import java.util.UUID;
+import java.util.concurrent.CompletableFuture;
+import java.util.concurrent.CountDownLatch;
+import java.util.concurrent.ExecutionException;
+
+/**
+ * A Jupyter kernel (messaging specification 5.3) over JeroMQ: binds shell, control, iopub, stdin and
+ * heartbeat to exactly the connection file's transport, address and ports, and serves until a
+ * {@code shutdown_request}. Each channel has its own thread; the shell thread runs cells one at a
+ * time, the control thread stays free to interrupt them. Every request is bracketed by
+ * {@code status: busy} and {@code status: idle} on iopub with the request as parent.
+ */
+public final class KernelServer implements AutoCloseable {
+    private static final int POLL_MS = 200;
+
+    private final ConnectionInfo connection;
+    private final ZContext context = new ZContext();
+    private final CompletableFuture<CellSession> session;
+    private final CountDownLatch stopped = new CountDownLatch(1);
+    private volatile boolean running = true;
+    private Iopub iopub;
+
+    private KernelServer(ConnectionInfo connection, SessionOptions options) {
+        this.connection = connection;
+        this.session = CompletableFuture.supplyAsync(() -> CellSession.start(options));
+    }
+
+    /** Binds the sockets and starts serving; the session starts in the background meanwhile. */
+    public static KernelServer start(ConnectionInfo connection, SessionOptions options) {
+        KernelServer k = new KernelServer(connection, options);
+        k.bindAndServe();
+        return k;
+    }
+
+    private void bindAndServe() {
+        WireCodec codec = new WireCodec(MessageSigner.forKey(connection.key()));
+        Replies replies = new Replies(UUID.randomUUID().toString());
+        ZMQ.Socket shellSocket = bind(SocketType.ROUTER, connection.shellPort());
+        ZMQ.Socket controlSocket = bind(SocketType.ROUTER, connection.controlPort());
+        ZMQ.Socket iopubSocket = bind(SocketType.PUB, connection.iopubPort());
+        bind(SocketType.ROUTER, connection.stdinPort());
+        ZMQ.Socket hbSocket = bind(SocketType.REP, connection.hbPort());
+        iopub = new Iopub(new Channel("iopub", iopubSocket, codec), replies);
+        RequestHandler handler = new RequestHandler(this::session, iopub, this::shutdownSoon);
+        startThread("loopledger-shell", () -> serve(new Channel("shell", shellSocket, codec), handler, replies));
+        startThread("loopledger-control", () -> serve(new Channel("control", controlSocket, codec), handler, replies));
+        startThread("loopledger-heartbeat", () -> heartbeat(hbSocket));
+        installInterruptSignal();
+        KernelLog.info("serving " + connection);
+    }
+
+    private ZMQ.Socket bind(SocketType type, int port) {
+        ZMQ.Socket s = context.createSocket(type);
+        s.setLinger(1000);
+        s.setReceiveTimeOut(POLL_MS);
+        s.bind(connection.endpoint(port));
+        return s;
+    }
+
+    private static void startThread(String name, Runnable body) {
+        Thread t = new Thread(body, name);
+        t.setDaemon(true);
+        t.start();
+    }
+
+    private CellSession session() {
+        try {
+            return session.get();
+        } catch (InterruptedException e) {
+            Thread.currentThread().interrupt();
+            throw new IllegalStateException("interrupted while the Java session was starting", e);
+        } catch (ExecutionException e) {
+            throw new IllegalStateException("the Java session failed to start: " + e.getCause(), e.getCause());
+        }
+    }
+
+    private void serve(Channel channel, RequestHandler handler, Replies replies) {
+        while (running) {
+            Optional<Message> next;
+            try {
+                next = channel.receive();
+            } catch (RuntimeException e) {
+                if (!running) return;
+                KernelLog.warn("receive failed: " + e);
+                continue;
+            }
+            if (next.isEmpty()) continue;
+            Message request = next.get();
+            try {
+                iopub.status(request.header(), "busy");
+                handler.handle(request).ifPresent(r -> channel.send(replies.reply(request, r.type(), r.content())));
+                iopub.status(request.header(), "idle");
+            } catch (RuntimeException | Error e) {
+                KernelLog.warn("failed to answer " + request + ": " + e);
+            }
+        }
+    }
+
+    private void heartbeat(ZMQ.Socket hb) {
+        while (running) {
+            try {
+                byte[] ping = hb.recv(0);
+                if (ping == null) continue;
+                hb.send(ping, 0);
+            } catch (RuntimeException e) {
+                if (!running) return;
+            }
+        }
+    }
+
+    /** SIGINT interrupts the running cell instead of ending the JVM (for clients that signal anyway). */
+    private void installInterruptSignal() {
+        try {
+            sun.misc.Signal.handle(new sun.misc.Signal("INT"), sig -> {
+                if (session.isDone()) session().interrupt();
+            });
+        } catch (RuntimeException | LinkageError e) {
+            KernelLog.warn("SIGINT cannot be handled here; use interrupt_mode message: " + e);
+        }
+    }
+
+    private void shutdownSoon() {
+        startThread("loopledger-shutdown", () -> {
+            try {
+                Thread.sleep(100);
+            } catch (InterruptedException e) {
+                Thread.currentThread().interrupt();
+            }
+            close();
+        });
+    }
+
+    /** Blocks until a shutdown request was served. */
+    public void awaitShutdown() throws InterruptedException {
+        stopped.await();
+    }
+
+    @Override
+    public void close() {
+        if (!running) return;
+        running = false;
+        try {
+            iopub.close();
+            session.thenAccept(CellSession::close);
+            context.close();
+        } finally {
+            stopped.countDown();
+        }
+    }
+}

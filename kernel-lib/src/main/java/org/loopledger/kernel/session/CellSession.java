@@ -1,0 +1,280 @@
+package org.loopledger.kernel.session;
+
+import jdk.jshell.Diag;
+import jdk.jshell.ExpressionSnippet;
+import jdk.jshell.JShell;
+import jdk.jshell.Snippet;
+import jdk.jshell.SnippetEvent;
+import jdk.jshell.SourceCodeAnalysis;
+import jdk.jshell.VarSnippet;
+import org.loopledger.display.MimeBundle;
+import org.loopledger.kernel.session.agent.AgentConnection;
+import org.loopledger.kernel.session.agent.AgentLauncher;
+
+import java.io.InputStream;
+import java.io.PrintStream;
+import java.nio.charset.StandardCharsets;
+import java.util.ArrayList;
+import java.util.LinkedHashSet;
+import java.util.List;
+import java.util.Map;
+import java.util.Optional;
+import java.util.concurrent.ConcurrentHashMap;
+
+/**
+ * Runs notebook cells in JShell: the evaluation engine shared by the Jupyter kernel and the headless
+ * runner, with no messaging inside.
+ *
+ * <p>Cells run in a separate agent JVM ({@link AgentLauncher}), so {@code System.exit} or an exhausted
+ * heap in a cell ends only that JVM; the session notices, starts a fresh one, and says so on stderr.
+ * Values become MIME bundles inside the agent; only JSON crosses the boundary.
+ *
+ * <p>Not thread-safe except {@link #interrupt()}, which any thread may call while a cell runs.
+ */
+public final class CellSession implements AutoCloseable {
+    private final SessionOptions options;
+    private final Map<String, Tracebacks.Origin> origins = new ConcurrentHashMap<>();
+    private volatile OutputListener listener = OutputListener.IGNORE;
+    private volatile boolean interruptRequested;
+    private JShell shell;
+    private AgentConnection agent;
+
+    private CellSession(SessionOptions options) {
+        this.options = options;
+    }
+
+    /** Starts the agent JVM, loads the preloaded imports and, if asked, warms the compiler. */
+    public static CellSession start(SessionOptions options) {
+        CellSession s = new CellSession(options);
+        s.boot();
+        return s;
+    }
+
+    private void boot() {
+        AgentLauncher launcher = new AgentLauncher(options.classPath(), options.agentVmOptions(),
+                new DisplayFrameSink(b -> listener.output(new CellOutput.Display(b))));
+        PrintStream out = new PrintStream(new Utf8StreamSink(t -> listener.output(new CellOutput.Stream(CellOutput.Stream.STDOUT, t))), true, StandardCharsets.UTF_8);
+        PrintStream err = new PrintStream(new Utf8StreamSink(t -> listener.output(new CellOutput.Stream(CellOutput.Stream.STDERR, t))), true, StandardCharsets.UTF_8);
+        shell = JShell.builder()
+                .executionEngine(launcher, Map.of())
+                .compilerOptions("--class-path", options.classPath())
+                .in(InputStream.nullInputStream())
+                .out(out)
+                .err(err)
+                .build();
+        agent = launcher.connection();
+        for (String imp : Preload.imports(CellSession.class.getClassLoader())) {
+            for (SnippetEvent e : shell.eval(imp)) {
+                if (e.status() == Snippet.Status.REJECTED) shell.drop(e.snippet());
+            }
+        }
+        if (options.warmUp()) warmUp();
+    }
+
+    private void warmUp() {
+        String[] snippets = {"1+1", "int ll$warm = 2;", "double ll$f(double x) { return x * ll$warm; }", "ll$f(1.5)",
+                "String.valueOf(ll$f(2))", "new java.util.ArrayList<Integer>().size()", "1+1"};
+        for (String src : snippets) {
+            for (SnippetEvent e : shell.eval(src)) shell.drop(e.snippet());
+        }
+        try {
+            agent.forgetLast();
+        } catch (Exception e) {
+            // warm-up only
+        }
+    }
+
+    /**
+     * Runs one cell; outputs reach {@code sink} as they happen and are also returned.
+     *
+     * @param code      the cell source, possibly several snippets
+     * @param cellLabel how tracebacks name this cell later, e.g. {@code cell [3]}
+     * @param sink      receives each output as it happens, on JShell's threads or the caller's
+     */
+    public CellResult execute(String code, String cellLabel, OutputListener sink) {
+        CellResult.Collector collector = new CellResult.Collector(sink);
+        listener = collector;
+        interruptRequested = false;
+        try {
+            runSnippets(code, cellLabel, collector);
+        } catch (IllegalStateException | jdk.jshell.spi.ExecutionControl.ExecutionControlException dead) {
+            recoverFromDeadAgent(collector, dead);
+        } catch (RuntimeException | Error e) {
+            if (!agentAlive()) {
+                recoverFromDeadAgent(collector, e);
+            } else {
+                collector.output(new CellOutput.Error("InternalError", "the kernel failed on this cell: " + e,
+                        List.of("InternalError: " + e, "The session is still running; please report this cell.")));
+            }
+        }
+        return collector.result();
+    }
+
+    private void runSnippets(String code, String label, OutputListener out) throws jdk.jshell.spi.ExecutionControl.ExecutionControlException {
+        List<CellSnippet> snippets = CellSnippet.split(shell.sourceCodeAnalysis(), code);
+        boolean shown = false;
+        for (int i = 0; i < snippets.size(); i++) {
+            if (interruptRequested) {
+                out.output(interrupted());
+                return;
+            }
+            CellSnippet snip = snippets.get(i);
+            List<SnippetEvent> events = shell.eval(snip.source());
+            if (!agentAlive()) throw new IllegalStateException("agent JVM ended");
+            Optional<CellOutput.Error> failure = Optional.empty();
+            SnippetEvent main = null;
+            for (SnippetEvent e : events) {
+                if (e.causeSnippet() == null) {
+                    main = e;
+                    origins.put(e.snippet().id(), new Tracebacks.Origin(label, snip.firstLine()));
+                }
+                if (e.status() == Snippet.Status.OVERWRITTEN) shell.drop(e.snippet());
+            }
+            if (main == null) continue;
+            if (main.status() == Snippet.Status.REJECTED) {
+                List<Diag> diags = shell.diagnostics(main.snippet()).toList();
+                shell.drop(main.snippet());
+                failure = Optional.of(Tracebacks.compileError(snip, diags));
+            } else if (main.exception() != null) {
+                failure = Optional.of(Tracebacks.runtimeError(main.exception(), origins, label));
+            } else if (interruptRequested) {
+                failure = Optional.of(interrupted());
+            } else if (main.status() == Snippet.Status.RECOVERABLE_DEFINED || main.status() == Snippet.Status.RECOVERABLE_NOT_DEFINED) {
+                List<String> unresolved = shell.unresolvedDependencies((jdk.jshell.DeclarationSnippet) main.snippet()).toList();
+                out.output(new CellOutput.Stream(CellOutput.Stream.STDERR, "note: line " + (snip.firstLine() + 1) + " is defined but cannot be used until "
+                        + String.join(", ", unresolved) + " " + (unresolved.size() == 1 ? "is" : "are") + " declared\n"));
+            }
+            if (failure.isPresent()) {
+                out.output(failure.get());
+                agent.forgetLast();
+                return;
+            }
+            if (i == snippets.size() - 1 && isExpression(main.snippet())) {
+                String json = agent.renderLast();
+                if (json != null) {
+                    out.output(new CellOutput.Result(MimeBundle.fromJson(json)));
+                    shown = true;
+                }
+            }
+        }
+        if (!shown) agent.forgetLast();
+    }
+
+    private static boolean isExpression(Snippet s) {
+        return s instanceof ExpressionSnippet
+                || s instanceof VarSnippet && s.subKind() == Snippet.SubKind.TEMP_VAR_EXPRESSION_SUBKIND;
+    }
+
+    private static CellOutput.Error interrupted() {
+        return new CellOutput.Error("Interrupted", "the cell was stopped by an interrupt",
+                List.of("Interrupted: the cell was stopped by an interrupt; variables it had assigned keep their values"));
+    }
+
+    private boolean agentAlive() {
+        return agent != null && agent.alive();
+    }
+
+    private void recoverFromDeadAgent(OutputListener out, Throwable why) {
+        String message = "The Java session running the cells ended (System.exit, an exhausted heap or a crash). "
+                + "A fresh session has been started: variables, methods and imports of earlier cells are gone; run them again.";
+        restartQuietly();
+        out.output(new CellOutput.Stream(CellOutput.Stream.STDERR, message + "\n"));
+        out.output(new CellOutput.Error("SessionRestarted", "the Java session ended and was restarted",
+                List.of("SessionRestarted: " + message, "    (cause: " + why.getMessage() + ")")));
+    }
+
+    private void restartQuietly() {
+        try {
+            shell.close();
+        } catch (RuntimeException e) {
+            // already closed
+        }
+        origins.clear();
+        boot();
+    }
+
+    /** Stops the running cell, even in a tight loop; harmless when none runs. Thread-safe. */
+    public void interrupt() {
+        interruptRequested = true;
+        JShell s = shell;
+        if (s != null) {
+            try {
+                s.stop();
+            } catch (IllegalStateException e) {
+                // session closed meanwhile
+            }
+        }
+    }
+
+    /** Ends the agent JVM and starts a new session with the preloaded imports. */
+    public void restart() {
+        restartQuietly();
+    }
+
+    /** Whether a console should run the code now, as for Jupyter's {@code is_complete_request}. */
+    public Completeness isComplete(String code) {
+        SourceCodeAnalysis analysis = shell.sourceCodeAnalysis();
+        String rest = code;
+        while (true) {
+            if (rest.isBlank()) return Completeness.COMPLETE;
+            SourceCodeAnalysis.CompletionInfo info = analysis.analyzeCompletion(rest);
+            switch (info.completeness()) {
+                case EMPTY:
+                    return Completeness.COMPLETE;
+                case COMPLETE:
+                case COMPLETE_WITH_SEMI:
+                    if (info.remaining().length() >= rest.length()) return Completeness.INVALID;
+                    rest = info.remaining();
+                    break;
+                case DEFINITELY_INCOMPLETE:
+                case CONSIDERED_INCOMPLETE:
+                    return Completeness.incomplete(indentFor(rest));
+                default:
+                    return Completeness.INVALID;
+            }
+        }
+    }
+
+    private static String indentFor(String code) {
+        int depth = 0;
+        for (char c : code.toCharArray()) {
+            if (c == '{' || c == '(') depth++;
+            else if ((c == '}' || c == ')') && depth > 0) depth--;
+        }
+        return "    ".repeat(Math.max(depth, 0));
+    }
+
+    /** Completions at {@code cursor} (UTF-16 offset) from JShell's source analysis. */
+    public Completions complete(String code, int cursor) {
+        int[] anchor = new int[1];
+        int at = Math.max(0, Math.min(cursor, code.length()));
+        List<SourceCodeAnalysis.Suggestion> suggestions = shell.sourceCodeAnalysis().completionSuggestions(code, at, anchor);
+        LinkedHashSet<String> matches = new LinkedHashSet<>();
+        suggestions.stream().filter(SourceCodeAnalysis.Suggestion::matchesType).forEach(s -> matches.add(s.continuation()));
+        suggestions.forEach(s -> matches.add(s.continuation()));
+        return new Completions(new ArrayList<>(matches), anchor[0], at);
+    }
+
+    /** Signatures and Javadoc of what is at {@code cursor}, or empty when nothing is known there. */
+    public Optional<String> inspect(String code, int cursor) {
+        int at = Math.max(0, Math.min(cursor, code.length()));
+        List<SourceCodeAnalysis.Documentation> docs = shell.sourceCodeAnalysis().documentation(code, at, true);
+        if (docs.isEmpty()) return Optional.empty();
+        StringBuilder b = new StringBuilder();
+        for (SourceCodeAnalysis.Documentation d : docs) {
+            if (b.length() > 0) b.append("\n\n");
+            b.append(d.signature());
+            if (d.javadoc() != null && !d.javadoc().isBlank()) b.append("\n").append(d.javadoc().strip());
+        }
+        return Optional.of(b.toString());
+    }
+
+    @Override
+    public void close() {
+        try {
+            shell.close();
+        } catch (RuntimeException e) {
+            // closing anyway
+        }
+    }
+}

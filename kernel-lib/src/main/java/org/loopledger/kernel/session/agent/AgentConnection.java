@@ -1,0 +1,64 @@
+package org.loopledger.kernel.session.agent;
+
+import jdk.jshell.spi.ExecutionControl;
+
+import java.io.IOException;
+import java.io.OutputStream;
+import java.net.Socket;
+
+/** The kernel side of one agent JVM: its process, its stop channel and its execution control. */
+public final class AgentConnection {
+    private final Process process;
+    private final Socket stopSocket;
+    private final OutputStream stopOut;
+    private volatile ExecutionControl control;
+
+    AgentConnection(Process process, Socket stopSocket, OutputStream stopOut) {
+        this.process = process;
+        this.stopSocket = stopSocket;
+        this.stopOut = stopOut;
+    }
+
+    void control(ExecutionControl control) {
+        this.control = control;
+    }
+
+    /** True while the agent JVM runs. */
+    public boolean alive() {
+        return process.isAlive();
+    }
+
+    /** Asks the agent to stop the running snippet; harmless when none runs. Thread-safe. */
+    public synchronized void stopRunning() {
+        try {
+            stopOut.write(1);
+            stopOut.flush();
+        } catch (IOException e) {
+            // agent gone: nothing to stop
+        }
+    }
+
+    /** Renders the value of the last expression in the agent as MIME bundle JSON; null if none. */
+    public String renderLast() throws ExecutionControl.ExecutionControlException {
+        Object r = control.extensionCommand(AgentControl.RENDER_LAST, null);
+        return r instanceof String s ? s : null;
+    }
+
+    /** Lets the agent drop its reference to the last value (when the cell shows no result). */
+    public void forgetLast() throws ExecutionControl.ExecutionControlException {
+        control.extensionCommand(AgentControl.FORGET_LAST, null);
+    }
+
+    void close() {
+        try {
+            stopSocket.close();
+        } catch (IOException e) {
+            // closing anyway
+        }
+        process.destroy();
+    }
+
+    void kill() {
+        process.destroyForcibly();
+    }
+}

@@ -1,0 +1,141 @@
+package org.loopledger.kernel.session.agent;
+
+import jdk.jshell.execution.DirectExecutionControl;
+import jdk.jshell.spi.ExecutionControl;
+import org.loopledger.display.Bundles;
+
+import java.lang.reflect.Field;
+import java.lang.reflect.Method;
+import java.lang.reflect.Modifier;
+import java.util.HashMap;
+import java.util.Map;
+
+/**
+ * The execution control inside the remote agent JVM: JShell's direct control plus
+ * <ul>
+ *   <li>stopping the snippet's thread even in a tight loop ({@link #stopClientCode}), and</li>
+ *   <li>the extension command {@value #RENDER_LAST}, which renders the value of the last variable whose
+ *       value JShell asked for as a MIME bundle (JSON) with {@link Bundles#json}, so rich values
+ *       never cross the JVM boundary and no second snippet needs compiling.</li>
+ * </ul>
+ */
+final class AgentControl extends DirectExecutionControl {
+    static final String RENDER_LAST = "loopledger.renderLast";
+    static final String FORGET_LAST = "loopledger.forgetLast";
+
+    private final Object lock = new Object();
+    private Thread clientThread;
+    private volatile boolean stopping;
+    private volatile Object lastValue;
+    private volatile boolean hasLastValue;
+    /** Variable name to the wrapper class that holds its current definition. */
+    private final Map<String, Class<?>> definitions = new HashMap<>();
+
+    @Override
+    protected void clientCodeEnter() {
+        synchronized (lock) {
+            clientThread = Thread.currentThread();
+        }
+    }
+
+    @Override
+    protected void clientCodeLeave() {
+        synchronized (lock) {
+            clientThread = null;
+        }
+    }
+
+    /** Stops the snippet now running, if any (JDK 17: {@code Thread.stop} works on any thread at a safepoint). */
+    @SuppressWarnings({"deprecation", "removal"})
+    void stopClientCode() {
+        synchronized (lock) {
+            if (clientThread != null) {
+                stopping = true;
+                clientThread.stop();
+            }
+        }
+    }
+
+    @Override
+    protected String throwConvertedInvocationException(Throwable cause) throws RunException, InternalException {
+        if (cause instanceof ThreadDeath && stopping) {
+            stopping = false;
+            throw new StoppedException();
+        }
+        return super.throwConvertedInvocationException(cause);
+    }
+
+    @Override
+    protected String throwConvertedOtherException(Throwable ex) throws RunException, InternalException {
+        if (ex instanceof ThreadDeath && stopping) {
+            stopping = false;
+            throw new StoppedException();
+        }
+        return super.throwConvertedOtherException(ex);
+    }
+
+    /** Runs a snippet's wrapper method and keeps its value for {@value #RENDER_LAST}. */
+    @Override
+    protected String invoke(Method doitMethod) throws Exception {
+        Object value = doitMethod.invoke(null);
+        Class<?> wrapper = doitMethod.getDeclaringClass();
+        for (Field f : wrapper.getFields()) {
+            if (Modifier.isStatic(f.getModifiers()) && !f.isSynthetic()) releaseOverwritten(f.getName(), wrapper);
+        }
+        lastValue = value;
+        hasLastValue = true;
+        return Bundles.plainText(value);
+    }
+
+    @Override
+    public String varValue(String className, String varName) throws RunException, EngineTerminationException, InternalException {
+        try {
+            Class<?> klass = findClass(className);
+            Field field = klass.getField(varName);
+            Object value = field.get(null);
+            releaseOverwritten(varName, klass);
+            lastValue = value;
+            hasLastValue = true;
+            return Bundles.plainText(value);
+        } catch (ReflectiveOperationException e) {
+            throw new InternalException("cannot read " + className + "." + varName + ": " + e);
+        } catch (Throwable t) {
+            return throwConvertedInvocationException(t);
+        }
+    }
+
+    /**
+     * A variable declared again lives in a new wrapper class; the old class stays loaded and its static
+     * field would keep the old value reachable. Clear it so a redefined large array can be collected.
+     */
+    private void releaseOverwritten(String varName, Class<?> current) {
+        Class<?> previous = definitions.put(varName, current);
+        if (previous == null || previous == current) return;
+        try {
+            Field old = previous.getField(varName);
+            if (!old.getType().isPrimitive() && !Modifier.isFinal(old.getModifiers())) old.set(null, null);
+        } catch (ReflectiveOperationException | RuntimeException e) {
+            // nothing to release
+        }
+    }
+
+    @Override
+    public Object extensionCommand(String command, Object arg) throws RunException, EngineTerminationException, InternalException {
+        if (FORGET_LAST.equals(command)) {
+            lastValue = null;
+            hasLastValue = false;
+            return null;
+        }
+        if (!RENDER_LAST.equals(command)) return super.extensionCommand(command, arg);
+        if (!hasLastValue) return null;
+        Object value = lastValue;
+        lastValue = null;
+        hasLastValue = false;
+        try {
+            return Bundles.json(value);
+        } catch (Throwable t) {
+            // a renderer failed (even with an Error): fall back to plain text, never kill the agent
+            return Bundles.failedJson(value, t);
+        }
+    }
+}

@@ -1,0 +1,53 @@
+package org.loopledger.kernel.session.agent;
+
+import jdk.jshell.execution.Util;
+import org.loopledger.display.DisplayChannel;
+
+import java.io.InputStream;
+import java.io.PrintStream;
+import java.net.InetAddress;
+import java.net.Socket;
+import java.nio.charset.StandardCharsets;
+import java.util.Map;
+import java.util.function.Consumer;
+
+/**
+ * Entry point of the JShell remote agent JVM that {@link AgentLauncher} starts.
+ *
+ * <p>Arguments: the loopback port of the launcher. The agent opens two connections to it: the JShell
+ * command stream (with {@code TCP_NODELAY}, which alone takes a trivial snippet from about 200 ms to
+ * about 25 ms) and a stop channel on which each byte means "stop the running snippet".
+ * Standard output, standard error and the display channel are multiplexed on the command stream by
+ * {@link Util#forwardExecutionControlAndIO}, so their order is the order in which the cell wrote them.
+ */
+public final class AgentMain {
+    private AgentMain() {}
+
+    public static void main(String[] args) throws Exception {
+        int port = Integer.parseInt(args[0]);
+        InetAddress loopback = InetAddress.getLoopbackAddress();
+        Socket commands = new Socket(loopback, port);
+        commands.setTcpNoDelay(true);
+        Socket stop = new Socket(loopback, port);
+        stop.setTcpNoDelay(true);
+        AgentControl control = new AgentControl();
+        Thread stopper = new Thread(() -> listenForStops(stop, control), "loopledger-stop");
+        stopper.setDaemon(true);
+        stopper.start();
+        Map<String, Consumer<java.io.OutputStream>> outputs = Map.of(
+                "out", st -> System.setOut(new PrintStream(st, true, StandardCharsets.UTF_8)),
+                "err", st -> System.setErr(new PrintStream(st, true, StandardCharsets.UTF_8)),
+                AgentLauncher.DISPLAY_CHANNEL, DisplayChannel::install);
+        Map<String, Consumer<InputStream>> inputs = Map.of("in", System::setIn);
+        Util.forwardExecutionControlAndIO(control, commands.getInputStream(), commands.getOutputStream(), outputs, inputs);
+        System.exit(0);
+    }
+
+    private static void listenForStops(Socket stop, AgentControl control) {
+        try (InputStream in = stop.getInputStream()) {
+            while (in.read() >= 0) control.stopClientCode();
+        } catch (Exception e) {
+            // the launcher went away: the command stream ends too and main exits
+        }
+    }
+}
