@@ -21,6 +21,13 @@ public final class AtomicFiles {
         writeBytes(target, content.getBytes(StandardCharsets.UTF_8));
     }
 
+    /** The new file gets the old file's permissions, or rw-r--r-- for a new file (temp files start as rw-------). */
+    private static void keepPermissions(Path target, Path tmp) throws IOException {
+        if (!Files.getFileStore(tmp).supportsFileAttributeView("posix")) return;
+        var perms = Files.exists(target) ? Files.getPosixFilePermissions(target) : java.nio.file.attribute.PosixFilePermissions.fromString("rw-r--r--");
+        Files.setPosixFilePermissions(tmp, perms);
+    }
+
     public static void writeBytes(Path target, byte[] content) {
         Path abs = target.toAbsolutePath();
         Path dir = abs.getParent();
@@ -30,6 +37,7 @@ public final class AtomicFiles {
         Path tmp = null;
         try {
             tmp = Files.createTempFile(dir, "." + abs.getFileName() + ".", ".tmp");
+            keepPermissions(abs, tmp);
             try (FileChannel ch = FileChannel.open(tmp, StandardOpenOption.WRITE, StandardOpenOption.TRUNCATE_EXISTING)) {
                 ByteBuffer b = ByteBuffer.wrap(content);
                 while (b.hasRemaining()) ch.write(b);
