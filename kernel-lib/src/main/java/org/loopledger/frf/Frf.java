@@ -36,6 +36,7 @@ public final class Frf {
     /** From a grid in rad/s and the real and imaginary parts (all copied). */
     public static Frf ofParts(double[] omegaRadPerS, double[] re, double[] im) {
         validateGrid(omegaRadPerS);
+        if (re == null || im == null) throw new IllegalArgumentException("FRF real and imaginary parts must be given (got null)");
         if (re.length != omegaRadPerS.length || im.length != omegaRadPerS.length) {
             throw new IllegalArgumentException("FRF arrays have different lengths: " + omegaRadPerS.length + " frequencies, "
                     + re.length + " real parts, " + im.length + " imaginary parts; give one value per frequency");
@@ -246,6 +247,9 @@ public final class Frf {
 
     /** The points with low &lt;= ω &lt;= high (rad/s). Throws when none remain. */
     public Frf restrictedToRadPerS(double lowRadPerS, double highRadPerS) {
+        if (Double.isNaN(lowRadPerS) || Double.isNaN(highRadPerS) || !(lowRadPerS <= highRadPerS)) {
+            throw new IllegalArgumentException("band " + lowRadPerS + " .. " + highRadPerS + " rad/s is not a band; give low <= high, both numbers");
+        }
         int a = 0;
         while (a < omega.length && omega[a] < lowRadPerS) a++;
         int b = omega.length;
@@ -279,7 +283,14 @@ public final class Frf {
             throw new IllegalArgumentException("cannot resample outside the measured band " + describeBand() + " (no extrapolation); restrict the target grid");
         }
         double[] logMag = new double[omega.length];
-        for (int i = 0; i < logMag.length; i++) logMag[i] = Math.log(Math.hypot(re[i], im[i]));
+        for (int i = 0; i < logMag.length; i++) {
+            double mag = Math.hypot(re[i], im[i]);
+            if (mag == 0) {
+                throw new IllegalArgumentException("FRF value at index " + i + " (" + Units.formatHz(Units.radPerSToHz(omega[i]))
+                        + ") is exactly zero; interpolation on log-magnitude needs non-zero values (drop or restrict that point)");
+            }
+            logMag[i] = Math.log(mag);
+        }
         double[] ph = phaseRadUnwrapped();
         double[] lw = new double[omega.length];
         for (int i = 0; i < lw.length; i++) lw[i] = Math.log(omega[i]);

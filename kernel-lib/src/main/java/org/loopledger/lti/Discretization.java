@@ -2,7 +2,6 @@ package org.loopledger.lti;
 
 import org.apache.commons.math3.complex.Complex;
 import org.apache.commons.math3.linear.Array2DRowRealMatrix;
-import org.apache.commons.math3.linear.EigenDecomposition;
 import org.apache.commons.math3.linear.RealMatrix;
 
 import java.util.ArrayList;
@@ -15,8 +14,9 @@ import java.util.List;
  *   <li>{@link #zoh}: exact zero-order-hold equivalent. The control canonical realisation (A, B, C, D)
  *       is discretised with one matrix exponential of [[A, B], [0, 0]]·T (Franklin, Powell and
  *       Workman, Digital Control of Dynamic Systems, 3rd ed., §4.3.3); the denominator is
- *       ∏(z - e<sup>p<sub>i</sub>T</sup>) from the continuous poles, the numerator
- *       det(zI - A<sub>d</sub> + B<sub>d</sub>C) - det(zI - A<sub>d</sub>) + D·det(zI - A<sub>d</sub>).</li>
+ *       ∏(z - e<sup>p<sub>i</sub>T</sup>) from the continuous poles, the numerator from the Markov
+ *       parameters h<sub>0</sub> = D, h<sub>k</sub> = C A<sub>d</sub><sup>k-1</sup> B<sub>d</sub> as
+ *       b<sub>k</sub> = Σ<sub>i&le;k</sub> a<sub>i</sub> h<sub>k-i</sub> (the first n+1 terms of D(z)·G(z)).</li>
  *   <li>{@link #tustin}: bilinear s = c·(z - 1)/(z + 1) with c = 2/T, or with prewarping at ω<sub>p</sub>,
  *       c = ω<sub>p</sub>/tan(ω<sub>p</sub>T/2), so that the discrete response equals the continuous one at ω<sub>p</sub>.</li>
  *   <li>{@link #matched}: matched pole-zero mapping z = e<sup>sT</sup> of every finite pole and zero;
@@ -44,13 +44,30 @@ public final class Discretization {
         RealMatrix phi = MatrixExponential.expm(m.scalarMultiply(sampleTimeS));
         RealMatrix ad = phi.getSubMatrix(0, n - 1, 0, n - 1);
         RealMatrix bd = phi.getSubMatrix(0, n - 1, n, n);
-        RealMatrix c = ss.cMatrix();
+        double[] c = ss.c();
         List<Complex> zPoles = new ArrayList<>();
         for (Complex p : g.poles()) zPoles.add(p.multiply(sampleTimeS).exp());
         Polynomial den = Polynomial.ofRoots(conjugateSymmetric(zPoles));
-        Polynomial closed = Polynomial.ofRoots(eigenvalues(ad.subtract(bd.multiply(c))));
-        Polynomial num = closed.minus(den).plus(den.times(ss.d()));
-        return TransferFunction.of(num, den, tb).withDelay(g.delayS());
+        double[] a = den.coefficientsDescending();
+        // Markov parameters h_0 = D, h_k = C A_d^{k-1} B_d, and N(z) = D(z)·G(z) truncated:
+        // b_k = Σ_{i=0..k} a_i h_{k-i}. Linear in the data, so a numerator much smaller than the
+        // denominator (fast sampling) keeps its own relative accuracy.
+        double[] h = new double[n + 1];
+        h[0] = ss.d();
+        RealMatrix x = bd;
+        for (int k = 1; k <= n; k++) {
+            double s = 0;
+            for (int i = 0; i < n; i++) s += c[i] * x.getEntry(i, 0);
+            h[k] = s;
+            if (k < n) x = ad.multiply(x);
+        }
+        double[] numD = new double[n + 1];
+        for (int k = 0; k <= n; k++) {
+            double s = 0;
+            for (int i = 0; i <= k; i++) s += a[i] * h[k - i];
+            numD[k] = s;
+        }
+        return TransferFunction.of(Polynomial.ofDescending(numD), den, tb).withDelay(g.delayS());
     }
 
     /** Tustin (bilinear) equivalent without prewarping: c = 2/T. */
@@ -118,6 +135,13 @@ public final class Discretization {
         for (Complex z : g.zeros()) zz.add(z.multiply(ts).exp());
         for (int i = 0; i < g.relativeDegree(); i++) zz.add(new Complex(-1, 0));
         TimeBase tb = TimeBase.sampled(ts);
+        double[] nv = new double[2], dv = new double[2];
+        g.numerator().evaluate(0, w, nv);
+        g.denominator().evaluate(0, w, dv);
+        if ((nv[0] == 0 && nv[1] == 0) || (dv[0] == 0 && dv[1] == 0)) {
+            throw new IllegalArgumentException("matched pole-zero: the gain cannot be matched at " + Units.g4(w) + " rad/s, where "
+                    + g + " has a " + (dv[0] == 0 && dv[1] == 0 ? "pole" : "zero") + "; choose another frequency");
+        }
         TransferFunction unit = TransferFunction.of(Polynomial.ofRoots(conjugateSymmetric(zz)), Polynomial.ofRoots(conjugateSymmetric(zp)), tb);
         double target = g.withoutDelay().response(w).abs();
         double got = unit.response(w).abs();
@@ -129,15 +153,6 @@ public final class Discretization {
         Complex b = unit.response(w);
         double sign = a.getReal() * b.getReal() + a.getImaginary() * b.getImaginary() >= 0 ? 1 : -1;
         return unit.times(sign * target / got).withDelay(g.delayS());
-    }
-
-    private static Complex[] eigenvalues(RealMatrix m) {
-        EigenDecomposition ed = new EigenDecomposition(m);
-        double[] re = ed.getRealEigenvalues();
-        double[] im = ed.getImagEigenvalues();
-        Complex[] r = new Complex[re.length];
-        for (int i = 0; i < r.length; i++) r[i] = new Complex(re[i], im[i]);
-        return conjugateSymmetric(List.of(r));
     }
 
     /** Makes a root set exactly conjugate-symmetric (pairs matched by nearest conjugate) so coefficients are real. */

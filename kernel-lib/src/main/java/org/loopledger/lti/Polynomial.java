@@ -91,6 +91,17 @@ public final class Polynomial {
     /** Coefficients in descending powers (a copy). */
     public double[] coefficientsDescending() { return c.clone(); }
 
+    /** The internal coefficient array, for allocation-free evaluation inside this package. Never modify or leak it. */
+    double[] coefficientsShared() { return c; }
+
+    /** p(x)/k, coefficient by coefficient (so a tiny k does not overflow through 1/k). */
+    public Polynomial dividedBy(double k) {
+        if (!Double.isFinite(k) || k == 0) throw new IllegalArgumentException("divisor must be finite and non-zero, got " + k);
+        double[] r = c.clone();
+        for (int i = 0; i < r.length; i++) r[i] /= k;
+        return ofDescending(r);
+    }
+
     /** Coefficient of x<sup>power</sup> (0 if above the degree). */
     public double coefficientOfPower(int power) {
         int idx = c.length - 1 - power;

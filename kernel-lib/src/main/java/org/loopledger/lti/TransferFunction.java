@@ -33,8 +33,8 @@ public final class TransferFunction {
             throw new IllegalArgumentException("delay must be a finite non-negative number of seconds, got " + delayS);
         }
         double lead = den.leading();
-        this.num = lead == 1.0 ? num : num.times(1.0 / lead);
-        this.den = lead == 1.0 ? den : den.times(1.0 / lead);
+        this.num = lead == 1.0 ? num : num.dividedBy(lead);
+        this.den = lead == 1.0 ? den : den.dividedBy(lead);
         this.timeBase = timeBase;
         this.delayS = delayS;
     }
@@ -151,26 +151,30 @@ public final class TransferFunction {
     }
 
     /**
-     * G on a grid of frequencies, written into {@code re} and {@code im} (modified); {@code omegaRadPerS}
-     * not modified. No allocation per point. For sampled systems every ω must lie in [0, π/T].
+     * G on a grid of frequencies, written into {@code re} and {@code im} (modified, at least as long as the
+     * grid); {@code omegaRadPerS} not modified. Allocation-free: Horner's rule on the coefficient arrays
+     * and Smith's complex division (no {@code Complex} objects, no boxing), so it suits hot loops over big
+     * grids. For sampled systems every ω must lie in [-π/T, π/T]. Throws when ω hits a pole on the
+     * imaginary axis (unit circle), where G is infinite, rather than writing NaN.
      */
     public void response(double[] omegaRadPerS, double[] re, double[] im) {
         if (re.length < omegaRadPerS.length || im.length < omegaRadPerS.length) {
-            throw new IllegalArgumentException("output arrays shorter than the frequency grid");
+            throw new IllegalArgumentException("output arrays (" + re.length + " and " + im.length + " entries) are shorter than the frequency grid ("
+                    + omegaRadPerS.length + " points); allocate one entry per frequency");
         }
         double ts = 0, nyq = Double.POSITIVE_INFINITY;
         if (timeBase instanceof TimeBase.Sampled sm) {
             ts = sm.sampleTimeS();
             nyq = sm.nyquistRadPerS();
         }
-        double[] n = new double[2], d = new double[2];
+        final double[] nc = num.coefficientsShared(), dc = den.coefficientsShared();
         for (int i = 0; i < omegaRadPerS.length; i++) {
             double w = omegaRadPerS[i];
-            if (!Double.isFinite(w)) throw new IllegalArgumentException("frequency " + w + " at index " + i + " is not finite");
+            if (!Double.isFinite(w)) throw new IllegalArgumentException("frequency " + w + " at index " + i + " is not finite; give finite rad/s values");
             double x, y;
             if (ts > 0) {
                 if (Math.abs(w) > nyq * (1 + 1e-12)) {
-                    throw new IllegalArgumentException("frequency " + Units.formatHz(Units.radPerSToHz(w)) + " lies above the Nyquist frequency "
+                    throw new IllegalArgumentException("frequency " + Units.formatHz(Units.radPerSToHz(w)) + " (index " + i + ") lies above the Nyquist frequency "
                             + Units.formatHz(Units.radPerSToHz(nyq)) + " of this sampled system; restrict the grid to [0, π/T]");
                 }
                 x = Math.cos(w * ts);
@@ -179,11 +183,32 @@ public final class TransferFunction {
                 x = 0;
                 y = w;
             }
-            num.evaluate(x, y, n);
-            den.evaluate(x, y, d);
-            double dd = d[0] * d[0] + d[1] * d[1];
-            double gr = (n[0] * d[0] + n[1] * d[1]) / dd;
-            double gi = (n[1] * d[0] - n[0] * d[1]) / dd;
+            double nr = 0, ni = 0;
+            for (double v : nc) {
+                double t = nr * x - ni * y + v;
+                ni = nr * y + ni * x;
+                nr = t;
+            }
+            double dr = 0, di = 0;
+            for (double v : dc) {
+                double t = dr * x - di * y + v;
+                di = dr * y + di * x;
+                dr = t;
+            }
+            double gr, gi;
+            if (Math.abs(dr) >= Math.abs(di)) {           // Smith's division: no overflow in |d|²
+                if (dr == 0) {
+                    throw new IllegalArgumentException("frequency " + Units.g4(w) + " rad/s (index " + i + ") is a pole of " + this
+                            + " on the " + (ts > 0 ? "unit circle" : "imaginary axis") + ", where the response is infinite; leave that frequency out of the grid");
+                }
+                double r = di / dr, q = dr + di * r;
+                gr = (nr + ni * r) / q;
+                gi = (ni - nr * r) / q;
+            } else {
+                double r = dr / di, q = dr * r + di;
+                gr = (nr * r + ni) / q;
+                gi = (ni * r - nr) / q;
+            }
             if (delayS > 0) {
                 double c = Math.cos(w * delayS), s = -Math.sin(w * delayS);
                 double t = gr * c - gi * s;
@@ -215,7 +240,11 @@ public final class TransferFunction {
 
     public TransferFunction minus(TransferFunction other) { return plus(other.negate()); }
 
-    public TransferFunction plus(double k) { return plus(gain(k, timeBase).withDelay(delayS)); }
+    /**
+     * This + k. For a delayed system (N/D)e<sup>-τs</sup> + k has no rational form, so it throws like
+     * {@link #plus(TransferFunction)} (k = 0 excepted).
+     */
+    public TransferFunction plus(double k) { return k == 0 ? this : plus(gain(k, timeBase)); }
 
     public TransferFunction negate() { return times(-1.0); }
 
@@ -247,29 +276,53 @@ public final class TransferFunction {
      * system with the same high-frequency gain factor. Returns this when nothing cancels.
      */
     public TransferFunction minimal(double relativeTolerance) {
+        if (!(relativeTolerance >= 0) || Double.isInfinite(relativeTolerance)) {
+            throw new IllegalArgumentException("cancellation tolerance must be a finite non-negative number, got " + relativeTolerance);
+        }
         if (num.isZero()) return new TransferFunction(Polynomial.zero(), Polynomial.one(), timeBase, delayS);
         List<Complex> z = new ArrayList<>(zeros());
         List<Complex> p = new ArrayList<>(poles());
         boolean any = false;
         for (int i = 0; i < p.size(); i++) {
             Complex pi = p.get(i);
-            int best = -1;
-            double bestD = Double.POSITIVE_INFINITY;
-            for (int j = 0; j < z.size(); j++) {
-                double dd = z.get(j).subtract(pi).abs();
-                if (dd < bestD) { bestD = dd; best = j; }
-            }
-            if (best >= 0 && bestD <= relativeTolerance * Math.max(1.0, pi.abs())) {
-                z.remove(best);
+            if (pi.getImaginary() < 0) continue;            // handled together with its partner above the axis
+            int zi = nearest(z, pi);
+            if (zi < 0 || z.get(zi).subtract(pi).abs() > relativeTolerance * Math.max(1.0, pi.abs())) continue;
+            if (pi.getImaginary() == 0) {
+                z.remove(zi);
                 p.remove(i);
-                i--;
+                i = -1;
                 any = true;
+                continue;
             }
+            // A complex pole cancels only together with its conjugate, so the remainder stays real.
+            List<Complex> z2 = new ArrayList<>(z);
+            Complex zc = z2.remove(zi);
+            int zj = nearest(z2, zc.getImaginary() == 0 ? pi.conjugate() : zc.conjugate());
+            if (zj < 0 || z2.get(zj).subtract(pi.conjugate()).abs() > relativeTolerance * Math.max(1.0, pi.abs())) continue;
+            z2.remove(zj);
+            List<Complex> p2 = new ArrayList<>(p);
+            p2.remove(i);
+            p2.remove(nearest(p2, pi.conjugate()));
+            z = z2;
+            p = p2;
+            i = -1;
+            any = true;
         }
         if (!any) return this;
         double k = num.leading();
         return new TransferFunction(Polynomial.ofRoots(Discretization.conjugateSymmetric(z)).times(k),
                 Polynomial.ofRoots(Discretization.conjugateSymmetric(p)), timeBase, delayS);
+    }
+
+    private static int nearest(List<Complex> list, Complex x) {
+        int best = -1;
+        double bestD = Double.POSITIVE_INFINITY;
+        for (int j = 0; j < list.size(); j++) {
+            double d = list.get(j).subtract(x).abs();
+            if (d < bestD) { bestD = d; best = j; }
+        }
+        return best;
     }
 
     /** Static gain at high frequency for a proper system (lim G as s → ∞), 0 if strictly proper. */
