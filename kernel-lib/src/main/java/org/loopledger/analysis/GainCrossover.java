@@ -1,0 +1,26 @@
+package org.loopledger.analysis;
+
+import java.util.OptionalDouble;
+
+/**
+ * One gain crossover, |L(jω)| = 1.
+ *
+ * @param omegaRadPerS       crossover frequency in rad/s
+ * @param phaseDeg           phase of L there, canonical unwrapped branch, degrees
+ * @param phaseMarginDeg     phase margin = phase + 180°, degrees (negative when the phase is below -180°)
+ * @param distanceToMinusOne |1 + L(jω)| at the crossover
+ * @param delayMarginS       extra delay that brings this crossover onto -1: PM (rad) / ω, 0 when PM &le; 0
+ * @param delayMarginSamples the same in samples of a sampled loop; empty for continuous loops
+ */
+public record GainCrossover(double omegaRadPerS, double phaseDeg, double phaseMarginDeg, double distanceToMinusOne,
+                            double delayMarginS, OptionalDouble delayMarginSamples) {
+
+    public double frequencyHz() { return omegaRadPerS / (2 * Math.PI); }
+
+    @Override public String toString() {
+        return "gain crossover at " + Fmt.hz(omegaRadPerS) + ": phase " + Fmt.deg(phaseDeg) + ", phase margin " + Fmt.deg(phaseMarginDeg)
+                + ", delay margin " + Fmt.seconds(delayMarginS)
+                + (delayMarginSamples.isPresent() ? " (" + Fmt.num(delayMarginSamples.getAsDouble()) + " samples)" : "")
+                + ", |1+L| = " + Fmt.num(distanceToMinusOne);
+    }
+}

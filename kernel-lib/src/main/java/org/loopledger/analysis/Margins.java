@@ -1,0 +1,321 @@
+package org.loopledger.analysis;
+
+import org.loopledger.frf.Frf;
+import org.loopledger.lti.TransferFunction;
+import org.loopledger.lti.Units;
+
+import java.util.ArrayList;
+import java.util.Collections;
+import java.util.List;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import java.util.OptionalInt;
+
+/**
+ * Stability margins of a loop gain L, all crossings listed:
+ * <ul>
+ *   <li>every gain crossover (|L| = 1) with its phase margin PM = ∠L + 180° (canonical unwrapped branch,
+ *       anchored at -90° per net integrator; may be negative), delay margin PM/ω and distance |1+L| to -1;</li>
+ *   <li>every phase crossover (∠L = -180° + k·360°) with its gain margin 1/|L| (ratio and dB); the upper
+ *       gain margin is the smallest factor above 1, the lower gain margin the largest factor below 1
+ *       (conditionally stable loops have both);</li>
+ *   <li>modulus margin: Ms = max |S| = 1/min|1+L| and its frequency; peak |T|; closed-loop -3 dB bandwidth.</li>
+ * </ul>
+ *
+ * <p>For measured loops only crossings inside the band are reported ("none in band" otherwise) and
+ * {@link #warnings()} says when the band does not cover them. Sampled loops are evaluated at
+ * z = e<sup>jωT</sup> up to the Nyquist frequency only.
+ *
+ * <p>References for the definitions: Åström and Murray, Feedback Systems, 2nd ed., §10.3 (gain, phase
+ * and delay margins; stability margin s<sub>m</sub> = 1/Ms), and Skogestad and Postlethwaite,
+ * Multivariable Feedback Control, 2nd ed., §2.4 (GM, PM, Ms, Mt, bandwidth of T).
+ */
+public final class Margins {
+    private final String source;
+    private final double lowRadPerS;
+    private final double highRadPerS;
+    private final boolean measured;
+    private final OptionalDouble sampleTimeS;
+    private final List<GainCrossover> gainCrossovers;
+    private final List<PhaseCrossover> phaseCrossovers;
+    private final Peak sensitivityPeak;
+    private final Peak complementaryPeak;
+    private final Bandwidth bandwidth;
+    private final int netIntegrators;
+    private final OptionalInt openLoopUnstablePoles;
+    private final int polesOnAxis;
+    private final List<String> warnings;
+
+    private Margins(String source, LoopResponse l, List<GainCrossover> gc, List<PhaseCrossover> pc, Peak ms, Peak mt, Bandwidth bw, List<String> warnings) {
+        this.source = source;
+        this.lowRadPerS = l.lowRadPerS();
+        this.highRadPerS = l.highRadPerS();
+        this.measured = l.isMeasured();
+        this.sampleTimeS = l.sampleTimeS();
+        this.gainCrossovers = List.copyOf(gc);
+        this.phaseCrossovers = List.copyOf(pc);
+        this.sensitivityPeak = ms;
+        this.complementaryPeak = mt;
+        this.bandwidth = bw;
+        this.netIntegrators = l.netIntegrators();
+        this.openLoopUnstablePoles = l.openLoopUnstablePoles();
+        this.polesOnAxis = l.openLoopPolesOnAxis();
+        this.warnings = List.copyOf(warnings);
+    }
+
+    /** Margins of a model loop gain (continuous or sampled, with or without delay). */
+    public static Margins of(TransferFunction loopGain) { return of(ModelLoop.of(loopGain)); }
+
+    /** Margins of a measured continuous-time loop gain (inside its band only). */
+    public static Margins of(Frf loopGain) { return of(MeasuredLoop.of(loopGain)); }
+
+    /** Fast path: margins of a measured loop given as primitive arrays (rad/s, Re L, Im L). */
+    public static Margins ofArrays(double[] omegaRadPerS, double[] re, double[] im) {
+        return of(MeasuredLoop.ofArrays(omegaRadPerS, re, im));
+    }
+
+    /** Margins of any loop response. */
+    public static Margins of(LoopResponse l) {
+        List<String> warn = new ArrayList<>();
+        OptionalDouble ts = l.sampleTimeS();
+        double[] v = new double[3];
+
+        // gain crossovers
+        boolean flatGain = l instanceof ModelLoop ml0 && ml0.degenerateGain();
+        boolean flatPhase = l instanceof ModelLoop ml1 && ml1.degeneratePhase();
+        List<LoopScan.Crossing> gcs = flatGain ? List.of() : LoopScan.gainCrossings(l);
+        Optional<double[]> exactGc = l.exactGainCrossoversRadPerS();
+        if (exactGc.isPresent()) gcs = LoopScan.merge(l, exactGc.get(), gcs);
+        List<GainCrossover> gain = new ArrayList<>();
+        for (LoopScan.Crossing c : gcs) {
+            double w = c.omegaRadPerS();
+            l.valueAt(w, c.bracket(), v);
+            double pmRad = v[2] + Math.PI;
+            double dm = Math.max(0, pmRad) / w;
+            gain.add(new GainCrossover(w, Math.toDegrees(v[2]), Math.toDegrees(pmRad), Math.hypot(1 + v[0], v[1]), dm,
+                    ts.isPresent() ? OptionalDouble.of(dm / ts.getAsDouble()) : OptionalDouble.empty()));
+        }
+
+        // phase crossovers
+        List<LoopScan.Crossing> pcs = flatPhase ? List.of() : LoopScan.phaseCrossings(l);
+        Optional<double[]> exactPc = l.exactPhaseCrossoversRadPerS();
+        if (exactPc.isPresent()) pcs = LoopScan.merge(l, exactPc.get(), pcs);
+        List<PhaseCrossover> phase = new ArrayList<>();
+        Optional<TransferFunction> model = l.model();
+        if (model.isPresent() && l.netIntegrators() == 0) {
+            double dc = model.get().withoutDelay().dcGain();
+            if (Double.isFinite(dc) && dc < 0) {
+                double k0 = Math.round((l.phaseRad(0) + Math.PI) / (2 * Math.PI));
+                phase.add(new PhaseCrossover(0, -dc, Math.toDegrees(2 * Math.PI * k0 - Math.PI), 1 / -dc, Math.abs(1 + dc)));
+            }
+        }
+        for (LoopScan.Crossing c : pcs) {
+            double w = c.omegaRadPerS();
+            l.valueAt(w, c.bracket(), v);
+            double mag = Math.hypot(v[0], v[1]);
+            double k = Math.round((v[2] + Math.PI) / (2 * Math.PI));
+            phase.add(new PhaseCrossover(w, mag, Math.toDegrees(2 * Math.PI * k - Math.PI), 1 / mag, Math.hypot(1 + v[0], v[1])));
+        }
+        if (model.isPresent() && ts.isPresent()) {
+            // the Nyquist point z = -1 is real: a phase crossover when L is negative there
+            int last = l.size() - 1;
+            double wn = Math.PI / ts.getAsDouble();
+            double r = l.re(last), m = l.im(last);
+            boolean already = !phase.isEmpty() && Math.abs(phase.get(phase.size() - 1).omegaRadPerS() - wn) <= 1e-9 * wn;
+            if (!already && Math.abs(l.omegaRadPerS(last) - wn) <= 1e-12 * wn && model.get().delayS() == 0 && r < 0
+                    && Math.abs(m) <= 1e-9 * Math.abs(r)) {
+                double k = Math.round((l.phaseRad(last) + Math.PI) / (2 * Math.PI));
+                phase.add(new PhaseCrossover(wn, -r, Math.toDegrees(2 * Math.PI * k - Math.PI), 1 / -r, Math.abs(1 + r)));
+            }
+        }
+
+        // closed-loop peaks and bandwidth
+        LoopScan.Extremum s = LoopScan.peak(l, LoopScan.Closed.SENSITIVITY);
+        LoopScan.Extremum t = LoopScan.peak(l, LoopScan.Closed.COMPLEMENTARY);
+        Peak ms = new Peak(Math.sqrt(s.value()), s.omegaRadPerS(), s.atEdge());
+        Peak mt = new Peak(Math.sqrt(t.value()), t.omegaRadPerS(), t.atEdge());
+        Bandwidth bw = bandwidth(l);
+
+        // warnings
+        if (l instanceof ModelLoop ml) {
+            if (ml.degenerateGain()) warn.add("|L| = 1 at every frequency (all-pass loop): gain crossovers are not isolated points");
+            if (ml.degeneratePhase()) warn.add("L is real over whole frequency intervals: phase crossovers are not isolated points");
+            if (ml.delayS() > 0 && ts.isEmpty()) {
+                warn.add("the delay adds phase crossovers without end; listed up to " + Fmt.hz(l.highRadPerS()) + " (ten times the highest pole, zero or crossover frequency, and at least 3 delay periods)");
+            }
+            int other = l.openLoopPolesOnAxis() - Math.max(0, l.netIntegrators());
+            if (other > 0) warn.add(other + " open-loop pole(s) on the imaginary axis (unit circle) besides integrators: |L| is infinite there");
+        }
+        OptionalInt unstable = l.openLoopUnstablePoles();
+        if (unstable.isPresent() && unstable.getAsInt() > 0) {
+            warn.add("the open loop has " + unstable.getAsInt() + " unstable pole(s): margins alone do not decide closed-loop stability; use ClosedLoopStability");
+        }
+        if (l.isMeasured()) {
+            int last = l.size() - 1;
+            double magTop = Math.exp(LoopScan.logMag(l, last));
+            double magBottom = Math.exp(LoopScan.logMag(l, 0));
+            if (magTop > 1) {
+                warn.add("|L| is still " + Fmt.db(Units.ratioToDb(magTop)) + " at the top of the band (" + Fmt.hz(l.highRadPerS())
+                        + "): a gain crossover lies above the measured band; margins there are unknown");
+            }
+            if (magBottom < 1) {
+                warn.add("|L| is already " + Fmt.db(Units.ratioToDb(magBottom)) + " at the bottom of the band (" + Fmt.hz(l.lowRadPerS())
+                        + "): a gain crossover may lie below the measured band");
+            }
+            if (gain.isEmpty()) warn.add("no gain crossover in the measured band: phase margin none in band");
+            if (phase.isEmpty()) {
+                warn.add("no phase crossover in the measured band: the gain margin may be set above " + Fmt.hz(l.highRadPerS())
+                        + " (|L| there " + Fmt.db(Units.ratioToDb(magTop)) + ")");
+            }
+            if (ms.atBandEdge()) warn.add("peak |S| sits at the band edge " + Fmt.hz(ms.omegaRadPerS()) + ": the true Ms may lie outside the band");
+            if (l instanceof MeasuredLoop m && !m.integratorsStated()) {
+                warn.add("net integrators estimated from the low-frequency slope: " + l.netIntegrators() + " (state them with withIntegrators if known)");
+            }
+        }
+        return new Margins(l.describe(), l, gain, phase, ms, mt, bw, warn);
+    }
+
+    private static Bandwidth bandwidth(LoopResponse l) {
+        int n = l.netIntegrators();
+        double ref;
+        String note = "";
+        if (n >= 1) {
+            ref = 1;
+        } else if (n < 0) {
+            return new Bandwidth(OptionalDouble.empty(), 0, "T(0) = 0 (the loop has a zero at DC): no low-frequency reference");
+        } else if (l.model().isPresent()) {
+            double dc = l.model().get().withoutDelay().dcGain();
+            if (1 + dc == 0) return new Bandwidth(OptionalDouble.empty(), Double.POSITIVE_INFINITY, "1 + L(0) = 0: T(0) is infinite");
+            ref = Math.abs(dc / (1 + dc));
+        } else {
+            ref = Math.sqrt(LoopScan.closedSq(LoopScan.Closed.COMPLEMENTARY, l.re(0), l.im(0)));
+            note = "reference |T| = " + Fmt.num(ref) + " taken at the lowest measured frequency";
+        }
+        if (ref == 0) return new Bandwidth(OptionalDouble.empty(), 0, "T(0) = 0: no low-frequency reference");
+        double w = LoopScan.firstBelow(l, ref / Math.sqrt(2));
+        if (w < 0) {
+            return new Bandwidth(OptionalDouble.empty(), ref, join(note, "|T| already below -3 dB at the lowest frequency " + Fmt.hz(l.lowRadPerS())));
+        }
+        if (Double.isNaN(w)) return new Bandwidth(OptionalDouble.empty(), ref, join(note, "|T| stays above -3 dB up to " + Fmt.hz(l.highRadPerS())));
+        return new Bandwidth(OptionalDouble.of(w), ref, note);
+    }
+
+    private static String join(String a, String b) { return a.isEmpty() ? b : a + "; " + b; }
+
+    /** Every gain crossover, ascending in frequency (empty: no crossover). */
+    public List<GainCrossover> gainCrossovers() { return gainCrossovers; }
+
+    /** Every phase crossover, ascending in frequency (empty: no crossover). */
+    public List<PhaseCrossover> phaseCrossovers() { return phaseCrossovers; }
+
+    /** The smallest gain increase that moves a crossing onto -1 (empty: no phase crossover with |L| &lt; 1). */
+    public Optional<PhaseCrossover> upperGainMargin() {
+        PhaseCrossover best = null;
+        for (PhaseCrossover p : phaseCrossovers) if (p.gainMarginRatio() > 1 && (best == null || p.gainMarginRatio() < best.gainMarginRatio())) best = p;
+        return Optional.ofNullable(best);
+    }
+
+    /** The smallest gain decrease that moves a crossing onto -1 (empty: no phase crossover with |L| &gt; 1). */
+    public Optional<PhaseCrossover> lowerGainMargin() {
+        PhaseCrossover best = null;
+        for (PhaseCrossover p : phaseCrossovers) if (p.gainMarginRatio() < 1 && (best == null || p.gainMarginRatio() > best.gainMarginRatio())) best = p;
+        return Optional.ofNullable(best);
+    }
+
+    /** The gain crossover with the smallest phase margin (empty: no gain crossover). */
+    public Optional<GainCrossover> phaseMargin() {
+        return gainCrossovers.stream().min((a, b) -> Double.compare(a.phaseMarginDeg(), b.phaseMarginDeg()));
+    }
+
+    /** Smallest phase margin in degrees, empty when there is no gain crossover. */
+    public OptionalDouble phaseMarginDeg() {
+        return phaseMargin().map(g -> OptionalDouble.of(g.phaseMarginDeg())).orElse(OptionalDouble.empty());
+    }
+
+    /** Upper gain margin in dB, empty when there is none. */
+    public OptionalDouble gainMarginDb() {
+        return upperGainMargin().map(p -> OptionalDouble.of(p.gainMarginDb())).orElse(OptionalDouble.empty());
+    }
+
+    /** Smallest delay margin over the gain crossovers, in s (empty: no gain crossover). */
+    public OptionalDouble delayMarginS() {
+        return gainCrossovers.stream().mapToDouble(GainCrossover::delayMarginS).min();
+    }
+
+    /** Smallest delay margin in samples for a sampled loop. */
+    public OptionalDouble delayMarginSamples() {
+        if (sampleTimeS.isEmpty()) return OptionalDouble.empty();
+        OptionalDouble d = delayMarginS();
+        return d.isPresent() ? OptionalDouble.of(d.getAsDouble() / sampleTimeS.getAsDouble()) : d;
+    }
+
+    /** Ms = max |S| and its frequency. */
+    public Peak sensitivityPeak() { return sensitivityPeak; }
+
+    /** Modulus margin 1/Ms = min |1 + L|: the distance from L to -1. */
+    public double modulusMargin() { return 1 / sensitivityPeak.magnitude(); }
+
+    /** Mt = max |T| and its frequency. */
+    public Peak complementaryPeak() { return complementaryPeak; }
+
+    public Bandwidth bandwidth() { return bandwidth; }
+
+    public int netIntegrators() { return netIntegrators; }
+
+    /** Open-loop unstable poles (models; data only when stated). */
+    public OptionalInt openLoopUnstablePoles() { return openLoopUnstablePoles; }
+
+    public int openLoopPolesOnAxis() { return polesOnAxis; }
+
+    public boolean measured() { return measured; }
+
+    public OptionalDouble sampleTimeS() { return sampleTimeS; }
+
+    public double lowRadPerS() { return lowRadPerS; }
+
+    public double highRadPerS() { return highRadPerS; }
+
+    /** Warnings and notes (band coverage, degenerate cases), in plain words. */
+    public List<String> warnings() { return warnings; }
+
+    private String none() { return measured ? "none in band" : "no crossover"; }
+
+    @Override public String toString() {
+        StringBuilder b = new StringBuilder();
+        b.append("Margins (").append(source).append(")\n");
+        b.append("  gain margin (increase): ").append(upperGainMargin().map(p -> Fmt.db(p.gainMarginDb()) + " (x" + Fmt.num(p.gainMarginRatio()) + ") at " + Fmt.hz(p.omegaRadPerS())).orElse(none())).append('\n');
+        b.append("  gain margin (decrease): ").append(lowerGainMargin().map(p -> Fmt.db(p.gainMarginDb()) + " (x" + Fmt.num(p.gainMarginRatio()) + ") at " + Fmt.hz(p.omegaRadPerS())).orElse(none())).append('\n');
+        b.append("  phase margin:           ").append(phaseMargin().map(g -> Fmt.deg(g.phaseMarginDeg()) + " at " + Fmt.hz(g.omegaRadPerS())).orElse(none())).append('\n');
+        b.append("  delay margin:           ").append(phaseMargin().isPresent() ? Fmt.seconds(delayMarginS().getAsDouble())
+                + (delayMarginSamples().isPresent() ? " (" + Fmt.num(delayMarginSamples().getAsDouble()) + " samples)" : "") : none()).append('\n');
+        b.append("  Ms = max|S|:            ").append(sensitivityPeak).append(", modulus margin 1/Ms = ").append(Fmt.num(modulusMargin())).append('\n');
+        b.append("  Mt = max|T|:            ").append(complementaryPeak).append('\n');
+        b.append("  bandwidth (-3 dB of T): ").append(bandwidth).append('\n');
+        b.append("  open loop:              ").append(openLoopUnstablePoles.isPresent() ? openLoopUnstablePoles.getAsInt() + " unstable pole(s)" : "unstable poles not stated")
+                .append(", ").append(polesOnAxis).append(" on the stability boundary, net integrators ").append(netIntegrators).append('\n');
+        b.append("  gain crossovers (|L| = 1):");
+        if (gainCrossovers.isEmpty()) b.append(' ').append(none()).append('\n');
+        else {
+            b.append('\n').append("    ").append(Fmt.pad("frequency", 14)).append(Fmt.pad("phase", 14)).append(Fmt.pad("PM", 14))
+                    .append(Fmt.pad("delay margin", 16)).append("|1+L|\n");
+            for (GainCrossover g : gainCrossovers) {
+                b.append("    ").append(Fmt.pad(Fmt.hz(g.omegaRadPerS()), 14)).append(Fmt.pad(Fmt.deg(g.phaseDeg()), 14))
+                        .append(Fmt.pad(Fmt.deg(g.phaseMarginDeg()), 14)).append(Fmt.pad(Fmt.seconds(g.delayMarginS()), 16))
+                        .append(Fmt.num(g.distanceToMinusOne())).append('\n');
+            }
+        }
+        b.append("  phase crossovers (phase = -180 deg + k 360 deg):");
+        if (phaseCrossovers.isEmpty()) b.append(' ').append(none()).append('\n');
+        else {
+            b.append('\n').append("    ").append(Fmt.pad("frequency", 14)).append(Fmt.pad("phase", 14)).append(Fmt.pad("|L|", 12))
+                    .append(Fmt.pad("GM", 24)).append("|1+L|\n");
+            for (PhaseCrossover p : phaseCrossovers) {
+                b.append("    ").append(Fmt.pad(Fmt.hz(p.omegaRadPerS()), 14)).append(Fmt.pad(Fmt.deg(p.phaseDeg()), 14))
+                        .append(Fmt.pad(Fmt.num(p.magnitude()), 12)).append(Fmt.pad(Fmt.db(p.gainMarginDb()) + " (x" + Fmt.num(p.gainMarginRatio()) + ")", 24))
+                        .append(Fmt.num(p.distanceToMinusOne())).append('\n');
+            }
+        }
+        for (String w : warnings) b.append("  note: ").append(w).append('\n');
+        return b.toString().stripTrailing();
+    }
+}

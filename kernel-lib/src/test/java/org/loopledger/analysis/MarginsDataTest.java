@@ -1,0 +1,114 @@
+package org.loopledger.analysis;
+
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.params.ParameterizedTest;
+import org.junit.jupiter.params.provider.ValueSource;
+import org.loopledger.frf.Frf;
+import org.loopledger.frf.FrequencyGrid;
+import org.loopledger.lti.TransferFunction;
+
+import static org.junit.jupiter.api.Assertions.*;
+
+/**
+ * The data path: the same references checked on an Frf of the model (as python-control checks a
+ * system, an FRD of it, and raw arrays).
+ */
+class MarginsDataTest {
+
+    /** 2,000 log-spaced points over 4 decades: Δ = ln(1e4)/1999 = 4.6e-3 in ln ω. */
+    static Frf sampled(TransferFunction l) { return Frf.ofModel(l, FrequencyGrid.logRadPerS(0.01, 100, 2000)); }
+
+    /**
+     * Log-linear interpolation errs by about Δ²/8 times the curvature of log|L| and phase in ln ω (order 1
+     * here): ~3e-6. Tolerance 1e-4 relative on frequencies and ratios, 1e-3 deg on phase margins.
+     * References: the hand results of MarginsModelTest (phase crossover √2, GM 6/K) and the model's margins.
+     */
+    @ParameterizedTest
+    @ValueSource(doubles = {0.5, 1, 2, 4})
+    void frfOfModelAgreesWithModel(double k) {
+        TransferFunction l = MarginsModelTest.third(k);
+        Margins model = Margins.of(l);
+        Margins data = Margins.of(sampled(l));
+        assertTrue(data.measured());
+        PhaseCrossover pc = data.upperGainMargin().orElseThrow();
+        assertEquals(Math.sqrt(2), pc.omegaRadPerS(), 1e-4 * Math.sqrt(2));
+        assertEquals(6 / k, pc.gainMarginRatio(), 1e-4 * 6 / k);
+        assertEquals(model.gainCrossovers().size(), data.gainCrossovers().size());
+        GainCrossover gm = model.phaseMargin().get(), gd = data.phaseMargin().get();
+        assertEquals(gm.omegaRadPerS(), gd.omegaRadPerS(), 1e-4 * gm.omegaRadPerS());
+        assertEquals(gm.phaseMarginDeg(), gd.phaseMarginDeg(), 1e-3);
+        assertEquals(gm.delayMarginS(), gd.delayMarginS(), 1e-4 * gm.delayMarginS());
+        if (!model.sensitivityPeak().atBandEdge()) { // K = 0.5: |S| rises towards 1 at the top of either band, not comparable
+            assertEquals(model.sensitivityPeak().magnitude(), data.sensitivityPeak().magnitude(), 1e-4 * model.sensitivityPeak().magnitude());
+            // the peak is flat: its frequency is far less sharply defined than its height
+            assertEquals(model.sensitivityPeak().omegaRadPerS(), data.sensitivityPeak().omegaRadPerS(), 2e-3 * model.sensitivityPeak().omegaRadPerS());
+        }
+        if (!model.complementaryPeak().atBandEdge()) { // K = 0.5: |T| is largest (1) towards DC, at the bottom of either band
+            assertEquals(model.complementaryPeak().magnitude(), data.complementaryPeak().magnitude(), 1e-4 * model.complementaryPeak().magnitude());
+        }
+        assertEquals(model.bandwidth().omegaRadPerS().getAsDouble(), data.bandwidth().omegaRadPerS().getAsDouble(),
+                1e-4 * model.bandwidth().omegaRadPerS().getAsDouble());
+        assertEquals(1, data.netIntegrators(), "estimated from the -20 dB/decade low-frequency slope");
+    }
+
+    /** Raw arrays (the fast path) give the very same numbers as the Frf they came from. */
+    @Test
+    void arraysFastPathEqualsFrfPath() {
+        Frf f = sampled(MarginsModelTest.third(2));
+        Margins a = Margins.ofArrays(f.omegaRadPerS(), f.real(), f.imag());
+        Margins b = Margins.of(f);
+        assertEquals(b.toString(), a.toString());
+        assertEquals(b.phaseMarginDeg().getAsDouble(), a.phaseMarginDeg().getAsDouble(), 0);
+    }
+
+    /** The conditionally stable loop on data: both gain margins (hand results in MarginsModelTest). */
+    @Test
+    void conditionallyStableOnData() {
+        TransferFunction l = MarginsModelTest.conditional(20);
+        Margins d = Margins.of(Frf.ofModel(l, FrequencyGrid.logRadPerS(0.5, 2000, 2000)));
+        assertEquals(95 - Math.sqrt(7025), d.lowerGainMargin().orElseThrow().omegaRadPerS(), 1e-4 * 11.2);
+        assertEquals(95 + Math.sqrt(7025), d.upperGainMargin().orElseThrow().omegaRadPerS(), 1e-4 * 178.8);
+        assertEquals(3, d.netIntegrators(), "three integrators: -60 dB/decade at the bottom of the band");
+    }
+
+    /**
+     * Band not covering the gain crossover (ω_gc = 0.446 rad/s for K = 1): no phase margin "none in band",
+     * and a warning that |L| is already below 1 at the bottom. Nothing is extrapolated.
+     */
+    @Test
+    void bandMissingGainCrossoverSaysNoneInBand() {
+        Margins d = Margins.of(Frf.ofModel(MarginsModelTest.third(1), FrequencyGrid.logRadPerS(1, 100, 500)));
+        assertTrue(d.gainCrossovers().isEmpty());
+        assertTrue(d.phaseMarginDeg().isEmpty());
+        assertTrue(d.delayMarginS().isEmpty());
+        String s = d.toString();
+        assertTrue(s.contains("phase margin:           none in band"), s);
+        assertTrue(d.warnings().stream().anyMatch(w -> w.contains("bottom of the band")), d.warnings().toString());
+        // the phase crossover at √2 is inside this band and still found
+        assertEquals(Math.sqrt(2), d.upperGainMargin().orElseThrow().omegaRadPerS(), 1e-3);
+    }
+
+    /** Band stopping below the phase crossover (√2 rad/s) and with |L| &gt; 1 at its top: none in band, warned. */
+    @Test
+    void bandMissingPhaseCrossoverWarns() {
+        Margins d = Margins.of(Frf.ofModel(MarginsModelTest.third(4), FrequencyGrid.logRadPerS(0.01, 0.8, 500)));
+        assertTrue(d.phaseCrossovers().isEmpty());
+        assertTrue(d.gainMarginDb().isEmpty());
+        assertTrue(d.toString().contains("gain margin (increase): none in band"), d.toString());
+        assertTrue(d.warnings().stream().anyMatch(w -> w.contains("top of the band")), d.warnings().toString());
+        assertTrue(d.warnings().stream().anyMatch(w -> w.contains("no phase crossover in the measured band")));
+    }
+
+    /** A measured loop needs two points and finite non-zero values; messages name the index. */
+    @Test
+    void badArraysRejected() {
+        assertThrows(IllegalArgumentException.class, () -> Margins.ofArrays(new double[] {1}, new double[] {1}, new double[] {0}));
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> Margins.ofArrays(new double[] {1, 2, 2}, new double[] {1, 1, 1}, new double[] {0, 0, 0}));
+        assertTrue(e.getMessage().contains("index 2"), e.getMessage());
+        e = assertThrows(IllegalArgumentException.class,
+                () -> Margins.ofArrays(new double[] {1, 2}, new double[] {1, Double.NaN}, new double[] {0, 0}));
+        assertTrue(e.getMessage().contains("index 1"), e.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> Margins.ofArrays(new double[] {1, 2}, new double[] {1}, new double[] {0, 0}));
+    }
+}
