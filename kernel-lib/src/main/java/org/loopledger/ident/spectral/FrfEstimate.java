@@ -104,6 +104,31 @@ public final class FrfEstimate {
         return Frf.ofPartsHz(f, h2r, h2i).withCoherence(coh).withUncertainty(u);
     }
 
+    /**
+     * H1 restricted to fLow .. fHigh Hz, after checking that the input carries energy there: throws when
+     * the band holds no bin, or when the input's density in the band stays below 1e-6 of its peak (an
+     * excitation with no energy in the requested band), naming the band and where the energy is.
+     */
+    public Frf h1InBand(double fLowHz, double fHighHz) {
+        double[] sxx = spectra.auto(0);
+        double peak = 0, inBand = 0;
+        int peakBin = 1, count = 0;
+        for (int k = 0; k < f.length; k++) {
+            double v = sxx[k + 1];
+            if (v > peak) { peak = v; peakBin = k; }
+            if (f[k] >= fLowHz && f[k] <= fHighHz) { inBand = Math.max(inBand, v); count++; }
+        }
+        if (count == 0) {
+            throw new IllegalArgumentException("no frequency bin lies in " + Units.formatHz(fLowHz) + " .. " + Units.formatHz(fHighHz)
+                    + "; the estimate covers " + Units.formatHz(f[0]) + " .. " + Units.formatHz(f[f.length - 1]));
+        }
+        if (!(inBand > 1e-6 * peak)) {
+            throw new IllegalArgumentException("the excitation has no energy in " + Units.formatHz(fLowHz) + " .. " + Units.formatHz(fHighHz)
+                    + " (input density below 1e-6 of its peak at " + Units.formatHz(f[peakBin]) + "); excite that band or choose another");
+        }
+        return h1().restrictedToHz(fLowHz, fHighHz);
+    }
+
     @Override public String toString() {
         return String.format(Locale.ROOT, "FrfEstimate[%d bins %s .. %s, %d segments, %.1f effective averages]",
                 f.length, Units.formatHz(f[0]), Units.formatHz(f[f.length - 1]), spectra.segments(), spectra.effectiveAverages());
