@@ -1,0 +1,218 @@
+package org.loopledger.control;
+
+import com.google.gson.JsonObject;
+import org.apache.commons.math3.complex.Complex;
+import org.junit.jupiter.api.Test;
+import org.loopledger.frf.Frf;
+import org.loopledger.frf.FrequencyGrid;
+import org.loopledger.lti.TransferFunction;
+import org.loopledger.testing.PythonOracle;
+
+import java.util.LinkedHashMap;
+import java.util.Map;
+import java.util.Random;
+
+import static org.junit.jupiter.api.Assertions.*;
+
+/** Break-point loop gains of the PIV cascade. References named at each check. */
+class CascadeLoopsTest {
+    /** Invented two-mass axis (demo-style numbers): J = 2e-4 kg·m², Kt = 0.5 N·m/A, resonance near 400 Hz, antiresonance near 280 Hz. */
+    static TransferFunction twoMassPlant() {
+        double kt = 0.5, jTot = 2e-4;
+        double wa = 2 * Math.PI * 280, za = 0.03, wr = 2 * Math.PI * 400, zr = 0.04;
+        // P_v(s) = Kt/(J s) · (s²/wa² + 2 za s/wa + 1)/(s²/wr² + 2 zr s/wr + 1)
+        TransferFunction rigid = TransferFunction.continuous(new double[] {kt / jTot}, new double[] {1, 0});
+        TransferFunction mode = TransferFunction.continuous(new double[] {1 / (wa * wa), 2 * za / wa, 1}, new double[] {1 / (wr * wr), 2 * zr / wr, 1});
+        return rigid.times(mode);
+    }
+
+    static final TransferFunction INTEGRATOR = TransferFunction.continuous(new double[] {1}, new double[] {1, 0});
+
+    private static void assertFrfEquals(Frf expected, Frf actual, double relTol, String what) {
+        assertTrue(expected.sameGridAs(actual), what + ": grids differ");
+        double worst = 0;
+        for (int i = 0; i < expected.size(); i++) {
+            double d = Math.hypot(expected.realAt(i) - actual.realAt(i), expected.imagAt(i) - actual.imagAt(i));
+            double m = Math.hypot(expected.realAt(i), expected.imagAt(i));
+            if (d > 0) worst = Math.max(worst, d / m);
+        }
+        assertTrue(worst <= relTol, what + ": worst relative difference " + worst + " > " + relTol);
+    }
+
+    @Test void equivalentSingleLoopEqualsCascadeAtPlantInput() {
+        // Common practice / algebra: C_v(1 + Kp/s)P_v = C_eq·P_v/s with C_eq = Kv(s + ωi)(s + Kp)/s (see Piv Javadoc).
+        Random r = new Random(4242L);
+        double[] w = FrequencyGrid.logHz(0.5, 5000, 400);
+        TransferFunction p = twoMassPlant();
+        for (int n = 0; n < 30; n++) {
+            Piv piv = Piv.of(20 + 300 * r.nextDouble(), 0.01 + 0.2 * r.nextDouble(), 1 + 60 * r.nextDouble());
+            FilterChain f = FilterChain.of(Notch.ofHz(350 + 100 * r.nextDouble(), 10 + 20 * r.nextDouble(), 60 + 60 * r.nextDouble()),
+                    LowPass2.ofHz(1000 + 1000 * r.nextDouble(), 0.5 + 0.3 * r.nextDouble()));
+            CascadeLoops loops = CascadeLoops.of(p, piv, f, DriveTiming.continuous(), w);
+            Frf single = Frf.ofModel(piv.equivalentSingleLoop().times(f.continuous()).times(p).times(INTEGRATOR), w);
+            // 1e-10: the two sides multiply the same factors in a different order (expanded 9th-order product on one side);
+            // rounding in the expanded polynomials is about 1e-13 here.
+            assertFrfEquals(single, loops.plantInput(), 1e-10, "single loop vs cascade, case " + n);
+            // and as exact transfer functions
+            CascadeTransferFunctions tf = loops.transferFunctions().orElseThrow();
+            assertFrfEquals(single, Frf.ofModel(tf.plantInput(), w), 1e-10, "transfer-function form, case " + n);
+        }
+    }
+
+    @Test void returnDifferenceFactorsIntoTheTwoLoops() {
+        // Algebra: 1 + L_u = 1 + L_v + (Kp/s)L_v = (1 + L_v)(1 + Kp T_v/s) = (1 + L_v)(1 + L_p). Checked with delay, hold and lag.
+        double[] w = FrequencyGrid.logHz(1, 7999, 500);
+        DriveTiming t = DriveTiming.sampledAtHz(16000).withComputationDelaySamples(1.5).withCurrentLoopBandwidthHz(2500);
+        CascadeLoops c = CascadeLoops.of(twoMassPlant(), Piv.of(150, 0.08, 25), FilterChain.of(Notch.ofHz(400, 20, 100)), t, w);
+        for (int i = 0; i < w.length; i++) {
+            Complex lu = c.plantInput().valueAt(i), lv = c.velocityLoop().valueAt(i), lp = c.positionLoop().valueAt(i);
+            Complex lhs = lu.add(1), rhs = lv.add(1).multiply(lp.add(1));
+            assertEquals(0, lhs.subtract(rhs).abs() / lhs.abs(), 1e-12, "at " + w[i] + " rad/s");
+            // T_p = L_p/(1 + L_p) and T_v likewise (definitions)
+            assertEquals(0, c.positionClosedLoop().valueAt(i).subtract(lp.divide(lp.add(1))).abs(), 1e-12 * Math.max(1, c.positionClosedLoop().valueAt(i).abs()));
+            assertEquals(0, c.velocityClosedLoop().valueAt(i).subtract(lv.divide(lv.add(1))).abs(), 1e-12 * Math.max(1, c.velocityClosedLoop().valueAt(i).abs()));
+        }
+    }
+
+    @Test void loopGainsAgreeWithAnIndependentNumpyEvaluation() {
+        PythonOracle.require("scipy", "numpy");
+        // Python evaluates the definitions with its own filters (scipy iirnotch and butter designs, which equal
+        // Notch.ofDigitalQ and LowPass2 at ζ = 1/√2, see FilterReferenceTest), scipy.signal.freqz/freqs, numpy's sinc.
+        double fs = 16000, delay = 0.7, fcl = 3000, kp = 120, kv = 0.06, fi = 20;
+        double[] w = FrequencyGrid.logHz(0.5, 0.999 * fs / 2, 600); // the low-pass's zero sits at Nyquist exactly
+        TransferFunction p = twoMassPlant();
+        FilterChain f = FilterChain.of(Notch.ofDigitalQ(400, 4, fs), LowPass2.ofHz(1500, 1 / Math.sqrt(2)));
+        DriveTiming t = DriveTiming.sampledAtHz(fs).withComputationDelaySamples(delay).withCurrentLoopBandwidthHz(fcl);
+        CascadeLoops c = CascadeLoops.of(p, Piv.of(kp, kv, fi), f, t, w);
+        Map<String, Object> in = new LinkedHashMap<>();
+        in.put("w", w);
+        in.put("fs", fs);
+        in.put("delay", delay);
+        in.put("fcl", fcl);
+        in.put("kp", kp);
+        in.put("kv", kv);
+        in.put("fi", fi);
+        in.put("pnum", p.numerator().coefficientsDescending());
+        in.put("pden", p.denominator().coefficientsDescending());
+        String script = """
+                import json, sys, math
+                import numpy as np
+                from scipy import signal
+                d = json.load(sys.stdin)
+                w = np.array(d['w']); fs = d['fs']; T = 1 / fs
+                _, P = signal.freqs(d['pnum'], d['pden'], worN=w)
+                bn, an = signal.iirnotch(400, 4, fs=fs)
+                bl, al = signal.butter(2, 1500, fs=fs)
+                _, Fn = signal.freqz(bn, an, worN=w / (2 * math.pi), fs=fs)
+                _, Fl = signal.freqz(bl, al, worN=w / (2 * math.pi), fs=fs)
+                z = np.exp(1j * w * T)
+                wi = 2 * math.pi * d['fi']
+                Cv = d['kv'] * ((1 + wi * T) * z - 1) / (z - 1)
+                wcl = 2 * math.pi * d['fcl']
+                D = np.exp(-1j * w * d['delay'] * T) * np.exp(-1j * w * T / 2) * np.sinc(w * T / (2 * math.pi)) * wcl / (1j * w + wcl)
+                Lv = Cv * Fn * Fl * D * P
+                Tv = Lv / (1 + Lv)
+                Lp = d['kp'] * Tv / (1j * w)
+                Lu = Lv * (1 + d['kp'] / (1j * w))
+                Tp = Lp / (1 + Lp)
+                out = {}
+                for k, v in (('Lv', Lv), ('Lu', Lu), ('Lp', Lp), ('Tp', Tp), ('Tv', Tv)):
+                    out[k] = {'re': v.real.tolist(), 'im': v.imag.tolist()}
+                print(json.dumps(out))
+                """;
+        JsonObject ref = PythonOracle.run(script, in).getAsJsonObject();
+        Map<String, Frf> ours = Map.of("Lv", c.velocityLoop(), "Lu", c.plantInput(), "Lp", c.positionLoop(), "Tp", c.positionClosedLoop(),
+                "Tv", c.velocityClosedLoop());
+        for (var e : ours.entrySet()) {
+            JsonObject o = ref.getAsJsonObject(e.getKey());
+            Frf expected = Frf.ofParts(w, PythonOracle.doubles(o.get("re")), PythonOracle.doubles(o.get("im")));
+            // 1e-9: both sides evaluate the same closed forms in double precision; the notch's deep minimum and
+            // the 1/(1 + L) near crossover amplify rounding by at most ~1e4 over 1e-16.
+            assertFrfEquals(expected, e.getValue(), 1e-9, e.getKey());
+        }
+    }
+
+    @Test void exactSampledLoopDiffersFromTheContinuousHoldModelBySincSquaredOnARigidBody() {
+        // Derivation by hand: for P = K/s, ZOH{P}(z) = K·T/(z - 1) = K e^{-jωT/2}/(jω·sinc(ωT/2)) on z = e^{jωT},
+        // while the continuous model gives P·e^{-jωT/2}·sinc(ωT/2). Same discrete controller and a whole-sample delay
+        // (z^-1 = e^{-jωT} exactly), so L_exact / L_hold-model = 1/sinc²(ωT/2), a real number.
+        double fs = 8000, tS = 1 / fs, k = 2500;
+        TransferFunction p = TransferFunction.continuous(new double[] {k}, new double[] {1, 0});
+        Piv piv = Piv.of(80, 0.2, 15);
+        FilterChain f = FilterChain.of(LowPass1.ofHz(900));
+        DriveTiming t = DriveTiming.sampledAtHz(fs).withComputationDelaySamples(1);
+        double[] w = FrequencyGrid.logHz(1, 3999, 200);
+        CascadeLoops approx = CascadeLoops.of(p, piv, f, t, w);
+        CascadeTransferFunctions exact = CascadeTransferFunctions.sampled(p, piv, f, t);
+        for (int i = 0; i < w.length; i++) {
+            double x = w[i] * tS / 2, sinc = Math.sin(x) / x;
+            Complex ratio = exact.velocityLoop().response(w[i]).divide(approx.velocityLoop().valueAt(i));
+            assertEquals(1 / (sinc * sinc), ratio.getReal(), 1e-9, "at " + w[i]);
+            assertEquals(0, ratio.getImaginary(), 1e-9, "at " + w[i]);
+        }
+    }
+
+    @Test void driveTimingFactorClosedForms() {
+        double fs = 10000, tS = 1 / fs;
+        double wNyq = Math.PI * fs;
+        double[] w = {wNyq / 4, wNyq / 2, wNyq};
+        // Hold alone: |H| = sinc(ωT/2), phase -ωT/2; at Nyquist sinc(π/2) = 2/π (closed form).
+        Frf h = DriveTiming.sampledAtHz(fs).factor(w);
+        assertEquals(2 / Math.PI, h.magnitude()[2], 1e-15);
+        for (int i = 0; i < w.length; i++) assertEquals(-w[i] * tS / 2, Math.atan2(h.imagAt(i), h.realAt(i)), 1e-14);
+        // Delay alone (hold off): unit magnitude, phase -ω·0.5T.
+        Frf d = DriveTiming.sampledAtHz(fs).withZeroOrderHold(false).withComputationDelaySamples(0.5).factor(w);
+        for (int i = 0; i < w.length; i++) {
+            assertEquals(1, d.magnitude()[i], 1e-15);
+            assertEquals(-w[i] * 0.5 * tS, Math.atan2(d.imagAt(i), d.realAt(i)), 1e-14);
+        }
+        // Current loop alone: -3 dB and -45 deg at its bandwidth (first-order lag, definition).
+        Frf c = DriveTiming.continuous().withCurrentLoopBandwidthHz(1000).factor(new double[] {2 * Math.PI * 1000});
+        assertEquals(1 / Math.sqrt(2), c.magnitude()[0], 1e-15);
+        assertEquals(-Math.PI / 4, Math.atan2(c.imagAt(0), c.realAt(0)), 1e-15);
+        assertTrue(DriveTiming.continuous().isRational());
+        assertFalse(DriveTiming.sampledAtHz(fs).isRational());
+        assertTrue(DriveTiming.sampledAtHz(16000).withComputationDelaySamples(1).toString().contains("62.5 µs"));
+    }
+
+    @Test void measuredPlantCoherenceIsCarriedAndGridIsKept() {
+        double[] w = FrequencyGrid.logHz(2, 2000, 100);
+        double[] coh = new double[w.length];
+        java.util.Arrays.fill(coh, 0.9);
+        Frf plant = Frf.ofModel(twoMassPlant(), w).withCoherence(coh);
+        CascadeLoops c = CascadeLoops.of(plant, Piv.of(100, 0.05, 10), FilterChain.none(), DriveTiming.sampledAtHz(8000));
+        assertTrue(c.velocityLoop().hasCoherence() && c.plantInput().hasCoherence());
+        assertTrue(c.positionLoop().sameGridAs(plant));
+        assertTrue(c.transferFunctions().isEmpty(), "measured data have no transfer-function form");
+        LoopGains all = c.all();
+        assertSame(c.positionLoop(), all.positionLoop());
+    }
+
+    @Test void badInputGivesClearErrors() {
+        double[] w = FrequencyGrid.logHz(1, 10000, 50);
+        TransferFunction p = twoMassPlant();
+        Piv piv = Piv.of(100, 0.05, 10);
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
+                () -> CascadeLoops.of(p, piv, FilterChain.none(), DriveTiming.sampledAtHz(8000), w));
+        assertTrue(e.getMessage().contains("Nyquist") && e.getMessage().contains("10 kHz"), e.getMessage());
+        double[] w2 = FrequencyGrid.logHz(1, 3000, 50);
+        IllegalArgumentException g = assertThrows(IllegalArgumentException.class,
+                () -> CascadeLoops.of(p, piv, FilterChain.of(Notch.ofHz(5000, 20, 100)), DriveTiming.sampledAtHz(8000), w2));
+        assertTrue(g.getMessage().contains("notch centre"), g.getMessage());
+        for (double fs : new double[] {0, -1, Double.NaN, Double.POSITIVE_INFINITY, 0.5, 1e9}) {
+            assertThrows(IllegalArgumentException.class, () -> DriveTiming.sampledAtHz(fs), "fs = " + fs);
+        }
+        assertThrows(IllegalArgumentException.class, () -> DriveTiming.sampledAtHz(8000).withComputationDelaySamples(-0.5));
+        assertThrows(IllegalArgumentException.class, () -> DriveTiming.sampledAtHz(8000).withComputationDelaySamples(62.5e-6 * 1e6)); // µs given as samples
+        assertThrows(IllegalArgumentException.class, () -> DriveTiming.continuous().withComputationDelaySamples(1));
+        assertThrows(IllegalArgumentException.class, () -> DriveTiming.continuous().withCurrentLoopBandwidthHz(0));
+        assertThrows(IllegalArgumentException.class,
+                () -> CascadeTransferFunctions.sampled(p, piv, FilterChain.none(), DriveTiming.sampledAtHz(8000).withComputationDelaySamples(0.5)));
+        assertThrows(IllegalArgumentException.class, () -> CascadeLoops.of(Discretize.any(), piv, FilterChain.none(), DriveTiming.continuous(), w2));
+    }
+
+    /** A sampled plant, to check the "plant must be continuous" error. */
+    private static final class Discretize {
+        static TransferFunction any() { return TransferFunction.discrete(new double[] {1}, new double[] {1, -0.5}, 1e-3); }
+    }
+}
