@@ -43,23 +43,7 @@ public final class FigureRenderer {
         Document doc = new SVGProcessor().getDocument(g.getCommands(), new PageSize(0, 0, f.widthPx(), f.heightPx()));
         ByteArrayOutputStream out = new ByteArrayOutputStream(64 * 1024);
         doc.writeTo(out);
-        return stableIds(ChartRenderer.stripProlog(out.toString(StandardCharsets.UTF_8)));
-    }
-
-    /**
-     * VectorGraphics2D names clip paths after identity hash codes, which change from run to run;
-     * renumbering them in order of appearance makes the SVG depend on the figure only.
-     */
-    static String stableIds(String svg) {
-        java.util.regex.Matcher m = java.util.regex.Pattern.compile("clip(\\d+)").matcher(svg);
-        java.util.Map<String, String> names = new java.util.HashMap<>();
-        StringBuilder sb = new StringBuilder(svg.length());
-        while (m.find()) {
-            String id = names.computeIfAbsent(m.group(1), k -> Integer.toString(names.size() + 1));
-            m.appendReplacement(sb, "clip" + id);
-        }
-        m.appendTail(sb);
-        return sb.toString();
+        return ChartRenderer.stripProlog(out.toString(StandardCharsets.UTF_8));
     }
 
     public static byte[] png(Figure f) throws IOException {
