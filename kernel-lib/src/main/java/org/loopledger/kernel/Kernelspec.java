@@ -49,7 +49,7 @@ public final class Kernelspec {
         metadata.addProperty("debugger", false);
         spec.add("metadata", metadata);
         Path tmp = dir.resolve("kernel.json.tmp");
-        Files.writeString(tmp, new GsonBuilder().setPrettyPrinting().create().toJson(spec) + "\n", StandardCharsets.UTF_8);
+        Files.writeString(tmp, new GsonBuilder().setPrettyPrinting().disableHtmlEscaping().create().toJson(spec) + "\n", StandardCharsets.UTF_8);
         Files.move(tmp, dir.resolve("kernel.json"), java.nio.file.StandardCopyOption.REPLACE_EXISTING, java.nio.file.StandardCopyOption.ATOMIC_MOVE);
         ImageIO.write(logo(32), "png", dir.resolve("logo-32x32.png").toFile());
         ImageIO.write(logo(64), "png", dir.resolve("logo-64x64.png").toFile());

@@ -3,6 +3,7 @@ package org.loopledger.kernel.protocol;
 import com.google.gson.JsonObject;
 
 import java.time.Instant;
+import java.time.temporal.ChronoUnit;
 import java.util.UUID;
 
 /** Builds message headers as the Jupyter messaging specification 5.3 defines them. */
@@ -16,7 +17,7 @@ public final class Headers {
         h.addProperty("msg_id", UUID.randomUUID().toString());
         h.addProperty("session", session);
         h.addProperty("username", username);
-        h.addProperty("date", Instant.now().toString());
+        h.addProperty("date", Instant.now().truncatedTo(ChronoUnit.MICROS).toString());
         h.addProperty("msg_type", msgType);
         h.addProperty("version", PROTOCOL_VERSION);
         return h;
