@@ -77,6 +77,10 @@ class LtiBadInputTest {
                         List.of("conjugate pairs")),
                 Arguments.of("state space with mismatched B", (Executable) () -> StateSpace.of(new double[][] {{1, 0}, {0, 1}}, new double[] {1}, new double[] {1, 1}, 0, TimeBase.continuous()),
                         List.of("2x2", "B has 1")),
+                Arguments.of("state space with a NaN in A", (Executable) () -> StateSpace.of(new double[][] {{1, 0}, {Double.NaN, 1}}, new double[] {1, 0}, new double[] {1, 1}, 0, TimeBase.continuous()),
+                        List.of("A(1,0)", "NaN")),
+                Arguments.of("state space with a ragged A", (Executable) () -> StateSpace.of(new double[][] {{1, 0}, {1}}, new double[] {1, 0}, new double[] {1, 1}, 0, TimeBase.continuous()),
+                        List.of("square", "row 1")),
                 Arguments.of("sample rate 0 Hz", (Executable) () -> TimeBase.sampledAtHz(0),
                         List.of("sample rate", "0.0")));
     }

@@ -138,7 +138,29 @@ class TransferFunctionAnalyticTest {
                 Arguments.of(tf(new double[] {2, 0}, new double[] {1, 3, 0}), 2 / 3.0, "s cancels: 2/(s+3) → 2/3"),
                 Arguments.of(TransferFunction.discrete(new double[] {0.01}, new double[] {1, -1}, 0.01), Double.POSITIVE_INFINITY,
                         "sampled integrator: pole at z = 1, infinite"),
-                Arguments.of(TransferFunction.discrete(new double[] {0.5}, new double[] {1, -0.5}, 0.01), 1.0, "G(1) = 0.5/0.5"));
+                Arguments.of(TransferFunction.discrete(new double[] {0.5}, new double[] {1, -0.5}, 0.01), 1.0, "G(1) = 0.5/0.5"),
+                Arguments.of(tf(new double[] {1}, new double[] {1, -2, 0}), Double.NEGATIVE_INFINITY,
+                        "1/(s(s-2)) ≈ -1/(2s) near 0: -inf (sign of the residue, derivation by hand)"),
+                Arguments.of(tf(new double[] {1}, new double[] {1, 1e-15}), Double.POSITIVE_INFINITY,
+                        "integrator computed as s + 1e-15 is an integrator (DESIGN, traps)"),
+                Arguments.of(tf(new double[] {1, 0, 0}, new double[] {1, 2, 0}), 0.0, "s²/(s(s+2)): a net zero at s = 0"),
+                Arguments.of(tf(new double[] {4, 0}, new double[] {1, 0, 0}), Double.POSITIVE_INFINITY, "4s/s²: a net pole at s = 0"));
+    }
+
+    static Stream<Arguments> sampledIntegratingPlants() {
+        // ZOH and Tustin of 1/(s(s+1.3)), 1/(s(s²+3.7s+2.1)) and 1/(s(s-2)), at sample times where the pole at
+        // z = 1 is stored with rounding noise (measured: the old code gave finite values up to ±9e11): the DC gain is +inf (integrating plant; the residue is positive).
+        return Stream.of(0.1, 0.01, 0.003, 1e-3, 6.25e-5).flatMap(t -> Stream.of(
+                Arguments.of(Discretization.zoh(tf(new double[] {1}, new double[] {1, 1.3, 0}), t), Double.POSITIVE_INFINITY, "zoh T = " + t),
+                Arguments.of(Discretization.zoh(tf(new double[] {1}, new double[] {1, 3.7, 2.1, 0}), t), Double.POSITIVE_INFINITY, "zoh 3rd order T = " + t),
+                Arguments.of(Discretization.tustin(tf(new double[] {1}, new double[] {1, 3.7, 2.1, 0}), t), Double.POSITIVE_INFINITY, "tustin T = " + t),
+                Arguments.of(Discretization.zoh(tf(new double[] {1}, new double[] {1, -2, 0}), t), Double.NEGATIVE_INFINITY, "zoh unstable T = " + t)));
+    }
+
+    @ParameterizedTest(name = "{2}")
+    @MethodSource("sampledIntegratingPlants")
+    void sampledIntegratorsHaveInfiniteDcGain(TransferFunction g, double expected, String source) {
+        assertEquals(expected, g.dcGain(), source);
     }
 
     @ParameterizedTest(name = "{2}")
