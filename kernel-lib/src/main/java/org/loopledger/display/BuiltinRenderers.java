@@ -1,6 +1,10 @@
 package org.loopledger.display;
 
-/** Registers the renderers for the general-purpose libraries we ship: XChart and Tablesaw, and our own figures. */
+/**
+ * Registers the renderers for the general-purpose libraries we ship (XChart, Tablesaw), our own
+ * figures, and the library's domain values (transfer functions, FRFs, margins), which are rendered
+ * from here so that the domain packages never depend on display.
+ */
 final class BuiltinRenderers {
     private BuiltinRenderers() {}
 
@@ -8,5 +12,8 @@ final class BuiltinRenderers {
         r.register(org.knowm.xchart.internal.chartpart.Chart.class, ChartRenderer::render);
         r.register(tech.tablesaw.api.Table.class, TableRenderer::render);
         r.register(org.loopledger.plot.Figure.class, FigureRenderer::render);
+        r.register(org.loopledger.lti.TransferFunction.class, TransferFunctionRenderer::render);
+        r.register(org.loopledger.frf.Frf.class, FrfRenderer::render);
+        r.register(org.loopledger.analysis.Margins.class, MarginsRenderer::render);
     }
 }
