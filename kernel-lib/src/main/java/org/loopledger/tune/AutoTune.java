@@ -155,17 +155,12 @@ public final class AutoTune {
                         for (CaseArrays c : cases) kv = Math.max(kv, 1.0 / (c.baseMagnitudeAt(wc) * c.piMagnitudeAt(wc, wi)));
                         LoopFigures worst = worstVelocity(kv, wi);
                         if (spec.meets(worst)) {
+                            feasible.add(new double[] {wc, kv, wi, worst.crossoverRadPerS(), r});
+                            feasibleLowPass.add(lp);
+                            feasibleFigures.add(worst);
                             if (!anyMet) {
                                 anyMet = true;
-                                feasible.add(new double[] {wc, kv, wi});
-                                feasibleLowPass.add(lp);
-                                feasibleFigures.add(worst);
-                                bestOmegaCv = wc;
-                                bestKv = kv;
-                                bestOmegaI = wi;
-                                bestLowPass = lp;
-                                bestFig = worst;
-                                line = String.format(java.util.Locale.ROOT, "velocity crossover %s: met with ω_cv/ω_i = %s%s (%s)", Units.formatHz(Units.radPerSToHz(wc)),
+                                line = String.format(java.util.Locale.ROOT, "trial crossover %s: met with ω_cv/ω_i = %s%s (%s)", Units.formatHz(Units.radPerSToHz(wc)),
                                         Units.g4(r), lp == null ? "" : ", low-pass at " + Units.formatHz(lp.naturalHz()), worst);
                             }
                         } else {
@@ -187,13 +182,16 @@ public final class AutoTune {
                     lastTraced = gi;
                 }
             }
-            if (bestFig != null) {
+            sortFeasible();
+            if (!feasible.isEmpty()) {
+                useChoice(0);
+                bestFig = feasibleFigures.get(0);
                 velocityMet = true;
                 binding = "velocity loop: " + spec.bindingConstraint(bestFig);
-                if (bestOmegaCv >= grid[grid.length - 1] * (1 - 1e-12) && grid.length > 1) {
+                if (feasible.get(0)[0] >= grid[grid.length - 1] * (1 - 1e-12) && grid.length > 1) {
                     binding = "velocity loop: top of the searched band (" + Units.formatHz(Units.radPerSToHz(grid[grid.length - 1])) + ")";
                 }
-                trace.add("velocity loop chosen: crossover " + Units.formatHz(Units.radPerSToHz(bestOmegaCv)) + ", Kv " + Units.g4(bestKv)
+                trace.add("velocity loop chosen: worst-case crossover " + Units.formatHz(Units.radPerSToHz(bestOmegaCv)) + ", Kv " + Units.g4(bestKv)
                         + ", integral corner " + Units.formatHz(Units.radPerSToHz(bestOmegaI)) + "; binding: " + binding);
             } else {
                 velocityMet = false;
@@ -226,7 +224,7 @@ public final class AutoTune {
             boolean stable = true;
             for (CaseArrays c : cases) {
                 double ph0 = c.velocityLoop(kv, wi);
-                LoopFigures f = LoopScreen.screen(c.omega, c.lRe, c.lIm, c.n, ph0);
+                LoopFigures f = LoopScreen.screen(c.omega, c.lRe, c.lIm, c.n, ph0, true);
                 evaluations++;
                 if (!(f.crossoverRadPerS() >= cross)) cross = Double.isNaN(f.crossoverRadPerS()) ? cross : f.crossoverRadPerS();
                 pm = Math.min(pm, f.phaseMarginDeg());
@@ -250,9 +248,14 @@ public final class AutoTune {
             }
             double targetKp = Units.hzToRadPerS(spec.positionBandwidthHz());
             double bestFoundKp = -1;
-            int bestIdx = feasible.size() - 1;
+            int bestIdx = 0;
             List<String> savedTrace = new ArrayList<>(trace);
-            for (int k = feasible.size() - 1; k >= 0; k--) {
+            double lastCrossover = Double.NaN;
+            int tried = 0;
+            for (int k = 0; k < feasible.size() && tried < 40; k++) {
+                if (feasible.get(k)[3] == lastCrossover) continue; // one candidate per crossover: the best-ranked
+                lastCrossover = feasible.get(k)[3];
+                tried++;
                 useChoice(k);
                 trace.clear();
                 position();
@@ -269,7 +272,7 @@ public final class AutoTune {
             useChoice(bestIdx);
             trace.clear();
             trace.addAll(savedTrace);
-            if (bestIdx != feasible.size() - 1) {
+            if (bestIdx != 0) {
                 trace.add("velocity crossover lowered to " + Units.formatHz(Units.radPerSToHz(bestOmegaCv)) + " so the position loop can reach "
                         + Units.formatHz(spec.positionBandwidthHz()));
                 binding = "velocity loop: lowered for the position target (" + spec.bindingConstraint(feasibleFigures.get(bestIdx)) + " at the higher crossovers)";
@@ -277,9 +280,35 @@ public final class AutoTune {
             position();
         }
 
+        /**
+         * Orders the feasible velocity candidates best first: highest worst-case actual crossover, then most
+         * integral action (smallest ω_cv/ω_i), then no extra low-pass; stable sort, so ties keep search order.
+         */
+        private void sortFeasible() {
+            Integer[] idx = new Integer[feasible.size()];
+            for (int i = 0; i < idx.length; i++) idx[i] = i;
+            java.util.Arrays.sort(idx, java.util.Comparator.<Integer>comparingDouble(i -> -feasible.get(i)[3])
+                    .thenComparingDouble(i -> feasible.get(i)[4])
+                    .thenComparingInt(i -> feasibleLowPass.get(i) == null ? 0 : 1));
+            List<double[]> f = new ArrayList<>();
+            List<LowPass2> l = new ArrayList<>();
+            List<LoopFigures> g = new ArrayList<>();
+            for (Integer i : idx) {
+                f.add(feasible.get(i));
+                l.add(feasibleLowPass.get(i));
+                g.add(feasibleFigures.get(i));
+            }
+            feasible.clear();
+            feasible.addAll(f);
+            feasibleLowPass.clear();
+            feasibleLowPass.addAll(l);
+            feasibleFigures.clear();
+            feasibleFigures.addAll(g);
+        }
+
         private void useChoice(int k) {
             double[] c = feasible.get(k);
-            bestOmegaCv = c[0];
+            bestOmegaCv = c[3];
             bestKv = c[1];
             bestOmegaI = c[2];
             bestLowPass = feasibleLowPass.get(k);
@@ -375,12 +404,12 @@ public final class AutoTune {
             }
             evaluations++;
             double ph0 = Math.atan2(c.l2Im[0], c.l2Re[0]) - Math.PI / 2;
-            return LoopScreen.screen(c.omega, c.lRe, c.lIm, c.n, ph0);
+            return LoopScreen.screen(c.omega, c.lRe, c.lIm, c.n, ph0, true);
         }
 
         /** Lu = Lv·(1 + Kp/(jω)); stability comes from the nested loops (1 + Lu = (1 + Lv)(1 + Lp)). */
         LoopFigures screenPlantInput(CaseArrays c, double kp, boolean positionStable) {
-            c.velocityLoop(bestKv, bestOmegaI);
+            double ph0 = c.velocityLoop(bestKv, bestOmegaI) + Math.atan2(-kp / c.omega[0], 1);
             for (int i = 0; i < c.n; i++) {
                 double fr = 1, fi = -kp / c.omega[i];
                 double r = c.lRe[i] * fr - c.lIm[i] * fi;
@@ -388,7 +417,7 @@ public final class AutoTune {
                 c.lRe[i] = r;
             }
             evaluations++;
-            LoopFigures f = LoopScreen.screen(c.omega, c.lRe, c.lIm, c.n, Double.NaN);
+            LoopFigures f = LoopScreen.screen(c.omega, c.lRe, c.lIm, c.n, ph0, false);
             return new LoopFigures(f.crossoverRadPerS(), f.phaseMarginDeg(), f.gainMarginDb(), f.lowerGainMarginDb(), f.sensitivityPeak(),
                     positionStable && velocityMet);
         }
