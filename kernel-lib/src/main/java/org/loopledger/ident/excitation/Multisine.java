@@ -15,10 +15,14 @@ import java.util.Locale;
 public final class Multisine {
     private final ExcitationSignal signal;
     private final int[] harmonics;
+    private final double[] phases;
+    private final double rms;
 
-    private Multisine(ExcitationSignal signal, int[] harmonics) {
+    private Multisine(ExcitationSignal signal, int[] harmonics, double[] phases, double rms) {
         this.signal = signal;
         this.harmonics = harmonics;
+        this.phases = phases;
+        this.rms = rms;
     }
 
     /**
@@ -55,18 +59,72 @@ public final class Multisine {
             for (int l = 0; l < i; l++) s += (h[i] - h[l]);
             phase[i] = -2 * Math.PI * s / count;
         }
+        String d = String.format(Locale.ROOT, "Schroeder multisine, %d log-spaced lines %.6g .. %.6g Hz, rms %.4g", count, h[0] * df, h[count - 1] * df, rms);
+        return new Multisine(ExcitationSignal.ofPeriod(d, sampleRateHz, synthesize(h, phase, periodSamples, rms), periods), h, phase, rms);
+    }
+
+    private static double[] synthesize(int[] h, double[] phase, int periodSamples, double rms) {
         double[] x = new double[periodSamples];
-        for (int i = 0; i < count; i++) {
+        for (int i = 0; i < h.length; i++) {
             for (int k = 0; k < periodSamples; k++) {
                 long hk = ((long) h[i] * k) % periodSamples; // exact argument reduction
                 x[k] += Math.cos(2 * Math.PI * hk / periodSamples + phase[i]);
             }
         }
-        double scale = rms / Math.sqrt(count / 2.0); // each unit cosine has mean square 1/2
+        double scale = rms / Math.sqrt(h.length / 2.0); // each unit cosine has mean square 1/2
         for (int k = 0; k < periodSamples; k++) x[k] *= scale;
-        String d = String.format(Locale.ROOT, "Schroeder multisine, %d log-spaced lines %.6g .. %.6g Hz, rms %.4g", count, h[0] * df, h[count - 1] * df, rms);
-        return new Multisine(ExcitationSignal.ofPeriod(d, sampleRateHz, x, periods), h);
+        return x;
     }
+
+    /**
+     * The same lines and amplitudes with phases improved for a lower crest factor: starting from the
+     * Schroeder phases, clip the signal at 80 % of its peak, keep the phases of the clipped signal's
+     * lines, restore the amplitudes, repeat; the lowest crest factor met is kept (Van der Ouderaa,
+     * Schoukens and Renneboog, "Peak factor minimization using a time-frequency domain swapping
+     * algorithm", IEEE Trans. Instrum. Meas. 37(1), 1988, from memory). Schroeder's formula assumes dense,
+     * consecutive lines; on sparse log-spaced lines it is little better than random phases, so this step pays.
+     */
+    public Multisine withReducedCrestFactor(int iterations) {
+        if (iterations < 1) throw new IllegalArgumentException("iterations must be at least 1, got " + iterations);
+        int p = signal.periodSamples();
+        double[] ph = phases.clone(), bestPh = phases.clone();
+        double[] x = synthesize(harmonics, ph, p, rms);
+        double best = crest(x);
+        double[] cos = new double[p], sin = new double[p];
+        for (int m = 0; m < p; m++) { cos[m] = Math.cos(2 * Math.PI * m / p); sin[m] = Math.sin(2 * Math.PI * m / p); }
+        double[] clipped = new double[p];
+        for (int it = 0; it < iterations; it++) {
+            double peak = 0;
+            for (double v : x) peak = Math.max(peak, Math.abs(v));
+            double lim = 0.8 * peak;
+            for (int k = 0; k < p; k++) clipped[k] = Math.max(-lim, Math.min(lim, x[k]));
+            for (int i = 0; i < harmonics.length; i++) {
+                double re = 0, im = 0;
+                int idx = 0, stepIdx = harmonics[i] % p;
+                for (int k = 0; k < p; k++) {
+                    re += clipped[k] * cos[idx];
+                    im -= clipped[k] * sin[idx];
+                    idx += stepIdx;
+                    if (idx >= p) idx -= p;
+                }
+                ph[i] = Math.atan2(im, re);
+            }
+            x = synthesize(harmonics, ph, p, rms);
+            double c = crest(x);
+            if (c < best) { best = c; bestPh = ph.clone(); }
+        }
+        String d = signal.description().replace("Schroeder multisine", "multisine (Schroeder phases, crest factor reduced)");
+        return new Multisine(ExcitationSignal.ofPeriod(d, signal.sampleRateHz(), synthesize(harmonics, bestPh, p, rms), signal.periods()), harmonics, bestPh, rms);
+    }
+
+    private static double crest(double[] x) {
+        double pk = 0, s = 0;
+        for (double v : x) { pk = Math.max(pk, Math.abs(v)); s += v * v; }
+        return pk / Math.sqrt(s / x.length);
+    }
+
+    /** Phase of each line, rad (copy). */
+    public double[] phasesRad() { return phases.clone(); }
 
     public ExcitationSignal signal() { return signal; }
 

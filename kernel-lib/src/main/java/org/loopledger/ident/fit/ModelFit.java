@@ -35,7 +35,7 @@ public final class ModelFit {
 
     private ModelFit() {}
 
-    private enum Kind { RIGID, TWO_MASS }
+    enum Kind { RIGID, TWO_MASS }
 
     /** Fits K<sub>t</sub>/(J s + b) (or /(J s² + b s) to position), optionally with delay. */
     public static RigidBodyFit rigidBody(Frf frf, FitOptions o) {
@@ -67,9 +67,13 @@ public final class ModelFit {
         int ia = -1;
         for (int i = 0; i < ir; i++) if (ia < 0 || a[i] < a[ia]) ia = i;
         double wr0 = d.w[ir], wa0 = ia >= 0 && d.w[ia] < wr0 ? d.w[ia] : wr0 / 1.3;
-        if (ir == 0 || ir == a.length - 1) {
+        double[] lowest = Arrays.copyOf(a, Math.max(1, a.length / 5));
+        Arrays.sort(lowest);
+        boolean standsOut = a[ir] > 1.5 * lowest[lowest.length / 2];
+        if (ir == 0 || ir == a.length - 1 || !standsOut) {
             throw new IllegalArgumentException("no resonance peak inside the fit band " + Units.formatHz(d.fLow()) + " .. " + Units.formatHz(d.fHigh())
-                    + " (the normalised magnitude peaks at its edge, " + Units.formatHz(Units.radPerSToHz(wr0)) + "); widen the band or fit a rigid body");
+                    + " (|G|·ω/Kt peaks at " + Units.formatHz(Units.radPerSToHz(wr0)) + ", at the band's edge or less than 1.5 times its low-frequency level); "
+                    + "widen the band or fit a rigid body");
         }
         List<Double> low = new ArrayList<>();
         for (int i = 0; i < a.length; i++) if (d.w[i] < wa0 / 3) low.add(a[i]);

@@ -32,6 +32,11 @@ public record TwoMassParameters(double inertiaKgM2, double viscousNmsPerRad, dou
 
     public double stiffnessNmPerRad() { return loadInertiaKgM2() * Math.pow(2 * Math.PI * antiresonanceHz, 2); }
 
+    /** The same without delay. */
+    public TwoMassParameters withoutDelay() {
+        return new TwoMassParameters(inertiaKgM2, viscousNmsPerRad, resonanceHz, resonanceDamping, antiresonanceHz, antiresonanceDamping, 0);
+    }
+
     /** The continuous model from current (A) to velocity (rad/s) or, with {@code toPosition}, to position (rad). */
     public TransferFunction model(double torqueConstantNmPerA, boolean toPosition) {
         double wa = 2 * Math.PI * antiresonanceHz, wr = 2 * Math.PI * resonanceHz;
