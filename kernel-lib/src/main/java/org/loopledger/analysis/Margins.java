@@ -95,7 +95,8 @@ public final class Margins {
             double w = c.omegaRadPerS();
             l.valueAt(w, c.bracket(), v);
             double pmRad = v[2] + Math.PI;
-            double dm = Math.max(0, pmRad) / w;
+            // the extra lag that brings this crossing onto -1 is PM reduced modulo 360° (0 when PM ≤ 0: already past it)
+            double dm = (pmRad <= 0 ? 0 : pmRad % (2 * Math.PI)) / w;
             gain.add(new GainCrossover(w, Math.toDegrees(v[2]), Math.toDegrees(pmRad), Math.hypot(1 + v[0], v[1]), dm,
                     ts.isPresent() ? OptionalDouble.of(dm / ts.getAsDouble()) : OptionalDouble.empty()));
         }

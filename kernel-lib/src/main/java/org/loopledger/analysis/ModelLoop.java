@@ -108,20 +108,30 @@ public final class ModelLoop implements LoopResponse {
         }
         double[] grid = sortedInBand(pts, lo, hi);
         double[][] resp = respond(grid);
+        // bisect (in log ω) every interval whose phase or magnitude step is too large; only new points are evaluated
         for (int pass = 0; pass < 30; pass++) {
-            List<Double> extra = new ArrayList<>();
-            for (int i = 0; i + 1 < grid.length; i++) {
+            int n = grid.length, flagged = 0;
+            boolean[] split = new boolean[n];
+            for (int i = 0; i + 1 < n; i++) {
                 double dph = Math.abs(principal(Math.atan2(resp[1][i + 1], resp[0][i + 1]) - Math.atan2(resp[1][i], resp[0][i])));
                 double dm = Math.abs(0.5 * Math.log((sq(resp[0][i + 1]) + sq(resp[1][i + 1])) / (sq(resp[0][i]) + sq(resp[1][i]))));
                 double dDelay = tau * (grid[i + 1] - grid[i]);
-                if (dph + dDelay > Math.toRadians(MAX_PHASE_STEP_DEG) || dm > MAX_LOG_MAG_STEP) {
-                    extra.add(Math.sqrt(grid[i] * grid[i + 1]));
+                if ((dph + dDelay > Math.toRadians(MAX_PHASE_STEP_DEG) || dm > MAX_LOG_MAG_STEP) && grid[i + 1] > grid[i] * (1 + 1e-12)) {
+                    split[i] = true;
+                    flagged++;
                 }
             }
-            if (extra.isEmpty() || grid.length + extra.size() > MAX_POINTS) break;
-            for (double v : grid) extra.add(v);
-            grid = sortedInBand(extra, lo, hi);
-            resp = respond(grid);
+            if (flagged == 0 || n + flagged > MAX_POINTS) break;
+            double[] mids = new double[flagged];
+            for (int i = 0, k = 0; i + 1 < n; i++) if (split[i]) mids[k++] = Math.sqrt(grid[i] * grid[i + 1]);
+            double[][] mr = respond(mids);
+            double[] g2 = new double[n + flagged], r2 = new double[n + flagged], i2 = new double[n + flagged];
+            for (int i = 0, k = 0, j = 0; i < n; i++) {
+                g2[j] = grid[i]; r2[j] = resp[0][i]; i2[j] = resp[1][i]; j++;
+                if (i + 1 < n && split[i]) { g2[j] = mids[k]; r2[j] = mr[0][k]; i2[j] = mr[1][k]; j++; k++; }
+            }
+            grid = g2;
+            resp = new double[][] {r2, i2};
         }
         this.w = grid;
         int n = grid.length;
