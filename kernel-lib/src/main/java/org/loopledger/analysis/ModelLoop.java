@@ -1,6 +1,7 @@
 package org.loopledger.analysis;
 
 import org.apache.commons.math3.complex.Complex;
+import org.loopledger.lti.Polynomial;
 import org.loopledger.lti.TimeBase;
 import org.loopledger.lti.TransferFunction;
 import org.loopledger.lti.Units;
@@ -41,6 +42,9 @@ public final class ModelLoop implements LoopResponse {
     private final double[] im;
     private final double[] phaseRational; // unwrapped, anchored
     private final int integrators;
+    private final Polynomial numRest;     // numerator without its s (or z - 1) factors
+    private final Polynomial denRest;     // denominator without its s (or z - 1) factors
+    private final int integratorPower;    // net power of 1/s (or 1/(z - 1)) split off
     private final int unstable;
     private final int onAxis;
     private final double[] exactGc; // null when not available
@@ -55,9 +59,15 @@ public final class ModelLoop implements LoopResponse {
         if (loop.numerator().isZero()) {
             throw new IllegalArgumentException("the loop gain is identically zero; there is no loop to analyse");
         }
-        List<Complex> poles = loop.poles();
-        List<Complex> zeros = loop.zeros();
-        int polesAtOrigin = 0, zerosAtOrigin = 0, un = 0, ax = 0;
+        // integrator factors s (or z - 1) split off first, so that their count is exact and they are evaluated in closed form
+        IntegratorSplit numSplit = IntegratorSplit.of(loop.numerator(), ts > 0);
+        IntegratorSplit denSplit = IntegratorSplit.of(loop.denominator(), ts > 0);
+        this.numRest = numSplit.rest();
+        this.denRest = denSplit.rest();
+        this.integratorPower = denSplit.count() - numSplit.count();
+        List<Complex> poles = denRest.degree() > 0 ? denRest.roots() : List.of();
+        List<Complex> zeros = numRest.degree() > 0 ? numRest.roots() : List.of();
+        int polesAtOrigin = denSplit.count(), zerosAtOrigin = numSplit.count(), un = 0, ax = denSplit.count();
         for (Complex p : poles) {
             if (atOrigin(p)) polesAtOrigin++;
             double margin = stabilityDistance(p);
@@ -201,8 +211,49 @@ public final class ModelLoop implements LoopResponse {
 
     private double[][] respond(double[] grid) {
         double[] r = new double[grid.length], i = new double[grid.length];
-        rational.response(grid, r, i);
+        double[] v = new double[2];
+        for (int k = 0; k < grid.length; k++) {
+            rationalAt(grid[k], v);
+            r[k] = v[0];
+            i[k] = v[1];
+        }
         return new double[][] {r, i};
+    }
+
+    /**
+     * The rational part at s = jω (or z = e^{jωT}, ω &le; π/T) into out[0..1]: Horner on the polynomials without
+     * their integrator factors, times (x - a)^(-power) in closed form.
+     */
+    private void rationalAt(double omega, double[] out) {
+        double x, y;
+        if (ts > 0) {
+            if (omega > Math.PI / ts * (1 + 1e-12)) {
+                throw new IllegalArgumentException("frequency " + Fmt.hz(omega) + " lies above the Nyquist frequency " + Fmt.hz(Math.PI / ts));
+            }
+            x = Math.cos(omega * ts);
+            y = Math.sin(omega * ts);
+        } else {
+            x = 0;
+            y = omega;
+        }
+        double[] n = new double[2], d = new double[2];
+        numRest.evaluate(x, y, n);
+        denRest.evaluate(x, y, d);
+        double dd = d[0] * d[0] + d[1] * d[1];
+        double gr = (n[0] * d[0] + n[1] * d[1]) / dd;
+        double gi = (n[1] * d[0] - n[0] * d[1]) / dd;
+        if (integratorPower != 0) {
+            // x - a = jω, or e^{jωT} - 1 = 2 sin(ωT/2) e^{j(π/2 + ωT/2)}
+            double mag = ts > 0 ? 2 * Math.sin(omega * ts / 2) : omega;
+            double ang = ts > 0 ? Math.PI / 2 + omega * ts / 2 : Math.PI / 2;
+            double m = Math.pow(mag, -integratorPower), a = -integratorPower * ang;
+            double c = m * Math.cos(a), s = m * Math.sin(a);
+            double t = gr * c - gi * s;
+            gi = gr * s + gi * c;
+            gr = t;
+        }
+        out[0] = gr;
+        out[1] = gi;
     }
 
     static double principal(double a) {
@@ -222,8 +273,9 @@ public final class ModelLoop implements LoopResponse {
     @Override public double phaseRad(int i) { return phaseRational[i] - w[i] * tau; }
 
     @Override public void valueAt(double omega, int i, double[] out) {
-        double[] r = new double[1], m = new double[1];
-        rational.response(new double[] {omega}, r, m);
+        double[] v = new double[2];
+        rationalAt(omega, v);
+        double[] r = {v[0]}, m = {v[1]};
         int j = Math.max(0, Math.min(i, w.length - 2));
         double t = (Math.log(omega) - Math.log(w[j])) / (Math.log(w[j + 1]) - Math.log(w[j]));
         double ref = phaseRational[j] + t * (phaseRational[j + 1] - phaseRational[j]);
