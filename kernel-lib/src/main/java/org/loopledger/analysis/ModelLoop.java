@@ -42,9 +42,7 @@ public final class ModelLoop implements LoopResponse {
     private final double[] im;
     private final double[] phaseRational; // unwrapped, anchored
     private final int integrators;
-    private final Polynomial numRest;     // numerator without its s (or z - 1) factors
-    private final Polynomial denRest;     // denominator without its s (or z - 1) factors
-    private final int integratorPower;    // net power of 1/s (or 1/(z - 1)) split off
+    private final FactoredResponse eval;  // the rational part, integrator factors in closed form
     private final int unstable;
     private final int onAxis;
     private final double[] exactGc; // null when not available
@@ -60,14 +58,11 @@ public final class ModelLoop implements LoopResponse {
             throw new IllegalArgumentException("the loop gain is identically zero; there is no loop to analyse");
         }
         // integrator factors s (or z - 1) split off first, so that their count is exact and they are evaluated in closed form
-        IntegratorSplit numSplit = IntegratorSplit.of(loop.numerator(), ts > 0);
-        IntegratorSplit denSplit = IntegratorSplit.of(loop.denominator(), ts > 0);
-        this.numRest = numSplit.rest();
-        this.denRest = denSplit.rest();
-        this.integratorPower = denSplit.count() - numSplit.count();
+        this.eval = new FactoredResponse(rational);
+        Polynomial numRest = eval.numeratorRest(), denRest = eval.denominatorRest();
         List<Complex> poles = denRest.degree() > 0 ? denRest.roots() : List.of();
         List<Complex> zeros = numRest.degree() > 0 ? numRest.roots() : List.of();
-        int polesAtOrigin = denSplit.count(), zerosAtOrigin = numSplit.count(), un = 0, ax = denSplit.count();
+        int polesAtOrigin = eval.denominatorFactors(), zerosAtOrigin = eval.numeratorFactors(), un = 0, ax = eval.denominatorFactors();
         for (Complex p : poles) {
             if (atOrigin(p)) polesAtOrigin++;
             double margin = stabilityDistance(p);
@@ -220,41 +215,7 @@ public final class ModelLoop implements LoopResponse {
         return new double[][] {r, i};
     }
 
-    /**
-     * The rational part at s = jω (or z = e^{jωT}, ω &le; π/T) into out[0..1]: Horner on the polynomials without
-     * their integrator factors, times (x - a)^(-power) in closed form.
-     */
-    private void rationalAt(double omega, double[] out) {
-        double x, y;
-        if (ts > 0) {
-            if (omega > Math.PI / ts * (1 + 1e-12)) {
-                throw new IllegalArgumentException("frequency " + Fmt.hz(omega) + " lies above the Nyquist frequency " + Fmt.hz(Math.PI / ts));
-            }
-            x = Math.cos(omega * ts);
-            y = Math.sin(omega * ts);
-        } else {
-            x = 0;
-            y = omega;
-        }
-        double[] n = new double[2], d = new double[2];
-        numRest.evaluate(x, y, n);
-        denRest.evaluate(x, y, d);
-        double dd = d[0] * d[0] + d[1] * d[1];
-        double gr = (n[0] * d[0] + n[1] * d[1]) / dd;
-        double gi = (n[1] * d[0] - n[0] * d[1]) / dd;
-        if (integratorPower != 0) {
-            // x - a = jω, or e^{jωT} - 1 = 2 sin(ωT/2) e^{j(π/2 + ωT/2)}
-            double mag = ts > 0 ? 2 * Math.sin(omega * ts / 2) : omega;
-            double ang = ts > 0 ? Math.PI / 2 + omega * ts / 2 : Math.PI / 2;
-            double m = Math.pow(mag, -integratorPower), a = -integratorPower * ang;
-            double c = m * Math.cos(a), s = m * Math.sin(a);
-            double t = gr * c - gi * s;
-            gi = gr * s + gi * c;
-            gr = t;
-        }
-        out[0] = gr;
-        out[1] = gi;
-    }
+    private void rationalAt(double omega, double[] out) { eval.rationalAt(omega, out); }
 
     static double principal(double a) {
         return a - 2 * Math.PI * Math.floor((a + Math.PI) / (2 * Math.PI));

@@ -28,9 +28,15 @@ public final class MarginsBenchmark {
         long t1 = System.nanoTime();
         System.out.println(Margins.ofArrays(w, re, im));
         System.out.printf("Margins.ofArrays on %d points: %.1f us per call (%d calls, checksum %.3f)%n", w.length, (t1 - t0) / 1e3 / runs, runs, sink);
+        for (int i = 0; i < 50; i++) sink += Margins.of(plant.times(pi)).modulusMargin();
         long t2 = System.nanoTime();
-        for (int i = 0; i < 20; i++) sink += Margins.of(plant.times(pi)).modulusMargin();
+        for (int i = 0; i < 50; i++) sink += Margins.of(plant.times(pi)).modulusMargin();
         long t3 = System.nanoTime();
-        System.out.printf("Margins.of(model) with delay: %.2f ms per call%n", (t3 - t2) / 1e6 / 20);
+        System.out.printf("Margins.of(model) with delay (grid built each call): %.2f ms per call%n", (t3 - t2) / 1e6 / 50);
+        // a raw 2,000-point primitive scan as the yardstick (the machine is shared: compare ratios, not absolutes)
+        long t4 = System.nanoTime();
+        for (int k = 0; k < runs; k++) for (int i = 0; i < w.length; i++) sink += re[i] * re[i] + im[i] * im[i] > 1 ? 1 : 0;
+        long t5 = System.nanoTime();
+        System.out.printf("yardstick: one primitive pass over %d points: %.2f us (checksum %.1f)%n", w.length, (t5 - t4) / 1e3 / runs, sink);
     }
 }
