@@ -7,9 +7,11 @@ import java.util.OptionalDouble;
  *
  * @param omegaRadPerS       crossover frequency in rad/s
  * @param phaseDeg           phase of L there, canonical unwrapped branch, degrees
- * @param phaseMarginDeg     phase margin = phase + 180°, degrees (negative when the phase is below -180°)
+ * @param phaseMarginDeg     phase margin = phase + 180°, degrees, on the canonical branch: negative when the phase is
+ *                           below -180°, and above 180° where the loop phase leads (between an antiresonance and its
+ *                           resonance, say): then it is the lag that would bring this crossing onto -1
  * @param distanceToMinusOne |1 + L(jω)| at the crossover
- * @param delayMarginS       extra delay that brings this crossover onto -1: PM (rad) / ω, 0 when PM &le; 0
+ * @param delayMarginS       extra delay that brings this crossover onto -1: PM (rad, reduced modulo 2π) / ω, 0 when PM &le; 0
  * @param delayMarginSamples the same in samples of a sampled loop; empty for continuous loops
  */
 public record GainCrossover(double omegaRadPerS, double phaseDeg, double phaseMarginDeg, double distanceToMinusOne,

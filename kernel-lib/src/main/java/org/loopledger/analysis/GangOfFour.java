@@ -62,8 +62,9 @@ public final class GangOfFour {
         plant.timeBase().requireSame(controller.timeBase(), "Gang of Four");
         int n = omegaRadPerS.length;
         double[] pr = new double[n], pi = new double[n], cr = new double[n], ci = new double[n];
-        plant.response(omegaRadPerS, pr, pi);
-        controller.response(omegaRadPerS, cr, ci);
+        // integrator factors in closed form: accurate near DC even for high-order sampled models
+        new FactoredResponse(plant).response(omegaRadPerS, pr, pi);
+        new FactoredResponse(controller).response(omegaRadPerS, cr, ci);
         return new GangOfFour(omegaRadPerS, pr, pi, cr, ci, exactForms(plant, controller));
     }
 
@@ -80,7 +81,7 @@ public final class GangOfFour {
     public static GangOfFour of(Frf plant, TransferFunction controller) {
         double[] w = plant.omegaRadPerS();
         double[] cr = new double[w.length], ci = new double[w.length];
-        controller.response(w, cr, ci);
+        new FactoredResponse(controller).response(w, cr, ci);
         return new GangOfFour(w, plant.real(), plant.imag(), cr, ci, null);
     }
 

@@ -89,6 +89,23 @@ public interface LoopResponse {
     /** One line naming the source: model or data, time base, band. */
     String describe();
 
+    /**
+     * Phase of L in rad at any frequency inside the analysed band, on the canonical branch (the bracket is
+     * found first, so a single-frequency evaluation still lands on the right branch). Throws outside the
+     * band: nothing is extrapolated.
+     */
+    default double phaseRadAt(double omegaRadPerS) {
+        if (!(omegaRadPerS >= lowRadPerS() * (1 - 1e-12) && omegaRadPerS <= highRadPerS() * (1 + 1e-12))) {
+            throw new IllegalArgumentException("frequency " + org.loopledger.lti.Units.formatHz(omegaRadPerS / (2 * Math.PI))
+                    + " lies outside the analysed band " + org.loopledger.lti.Units.formatHz(lowRadPerS() / (2 * Math.PI)) + " .. "
+                    + org.loopledger.lti.Units.formatHz(highRadPerS() / (2 * Math.PI)) + "; no extrapolation");
+        }
+        double w = Math.min(highRadPerS(), Math.max(lowRadPerS(), omegaRadPerS));
+        double[] v = new double[3];
+        valueAt(w, LoopScan.bracketOf(this, w), v);
+        return v[2];
+    }
+
     /** Lowest analysed frequency, rad/s. */
     default double lowRadPerS() { return omegaRadPerS(0); }
 

@@ -95,7 +95,8 @@ public final class Margins {
             double w = c.omegaRadPerS();
             l.valueAt(w, c.bracket(), v);
             double pmRad = v[2] + Math.PI;
-            double dm = Math.max(0, pmRad) / w;
+            // the extra lag that brings this crossing onto -1 is PM reduced modulo 360° (0 when PM ≤ 0: already past it)
+            double dm = (pmRad <= 0 ? 0 : pmRad % (2 * Math.PI)) / w;
             gain.add(new GainCrossover(w, Math.toDegrees(v[2]), Math.toDegrees(pmRad), Math.hypot(1 + v[0], v[1]), dm,
                     ts.isPresent() ? OptionalDouble.of(dm / ts.getAsDouble()) : OptionalDouble.empty()));
         }
@@ -173,6 +174,12 @@ public final class Margins {
                 warn.add(() -> "no phase crossover in the measured band: the gain margin may be set above " + Fmt.hz(hiW)
                         + " (|L| there " + Fmt.db(Units.ratioToDb(magTop)) + ")");
             }
+            int gClusters = clusters(gain.stream().mapToDouble(GainCrossover::omegaRadPerS).toArray());
+            int pClusters = clusters(phase.stream().mapToDouble(PhaseCrossover::omegaRadPerS).toArray());
+            if (gClusters + pClusters > 0) {
+                warn.add(() -> "crossings closer than 5 % in frequency (" + gClusters + " gain, " + pClusters
+                        + " phase): likely measurement noise near |L| = 1 or -180 deg; all are listed and the worst one counts");
+            }
             if (ms.atBandEdge()) warn.add(() -> "peak |S| sits at the band edge " + Fmt.hz(ms.omegaRadPerS()) + ": the true Ms may lie outside the band");
             if (l instanceof MeasuredLoop m && !m.integratorsStated()) {
                 warn.add(() -> "net integrators estimated from the low-frequency slope: " + nInt + " (state them with withIntegrators if known)");
@@ -214,6 +221,13 @@ public final class Margins {
         }
         if (Double.isNaN(w)) return new Bandwidth(OptionalDouble.empty(), ref, join(note, "|T| stays above -3 dB up to " + Fmt.hz(l.highRadPerS())));
         return new Bandwidth(OptionalDouble.of(w), ref, note);
+    }
+
+    /** Number of neighbours closer than 5 % in frequency. */
+    private static int clusters(double[] w) {
+        int k = 0;
+        for (int i = 1; i < w.length; i++) if (w[i] < 1.05 * w[i - 1]) k++;
+        return k;
     }
 
     private static String join(String a, String b) { return a.isEmpty() ? b : a + "; " + b; }

@@ -1,6 +1,7 @@
 package org.loopledger.analysis;
 
 import org.apache.commons.math3.complex.Complex;
+import org.loopledger.lti.Polynomial;
 import org.loopledger.lti.TimeBase;
 import org.loopledger.lti.TransferFunction;
 import org.loopledger.lti.Units;
@@ -41,6 +42,7 @@ public final class ModelLoop implements LoopResponse {
     private final double[] im;
     private final double[] phaseRational; // unwrapped, anchored
     private final int integrators;
+    private final FactoredResponse eval;  // the rational part, integrator factors in closed form
     private final int unstable;
     private final int onAxis;
     private final double[] exactGc; // null when not available
@@ -55,9 +57,12 @@ public final class ModelLoop implements LoopResponse {
         if (loop.numerator().isZero()) {
             throw new IllegalArgumentException("the loop gain is identically zero; there is no loop to analyse");
         }
-        List<Complex> poles = loop.poles();
-        List<Complex> zeros = loop.zeros();
-        int polesAtOrigin = 0, zerosAtOrigin = 0, un = 0, ax = 0;
+        // integrator factors s (or z - 1) split off first, so that their count is exact and they are evaluated in closed form
+        this.eval = new FactoredResponse(rational);
+        Polynomial numRest = eval.numeratorRest(), denRest = eval.denominatorRest();
+        List<Complex> poles = denRest.degree() > 0 ? denRest.roots() : List.of();
+        List<Complex> zeros = numRest.degree() > 0 ? numRest.roots() : List.of();
+        int polesAtOrigin = eval.denominatorFactors(), zerosAtOrigin = eval.numeratorFactors(), un = 0, ax = eval.denominatorFactors();
         for (Complex p : poles) {
             if (atOrigin(p)) polesAtOrigin++;
             double margin = stabilityDistance(p);
@@ -108,20 +113,30 @@ public final class ModelLoop implements LoopResponse {
         }
         double[] grid = sortedInBand(pts, lo, hi);
         double[][] resp = respond(grid);
+        // bisect (in log ω) every interval whose phase or magnitude step is too large; only new points are evaluated
         for (int pass = 0; pass < 30; pass++) {
-            List<Double> extra = new ArrayList<>();
-            for (int i = 0; i + 1 < grid.length; i++) {
+            int n = grid.length, flagged = 0;
+            boolean[] split = new boolean[n];
+            for (int i = 0; i + 1 < n; i++) {
                 double dph = Math.abs(principal(Math.atan2(resp[1][i + 1], resp[0][i + 1]) - Math.atan2(resp[1][i], resp[0][i])));
                 double dm = Math.abs(0.5 * Math.log((sq(resp[0][i + 1]) + sq(resp[1][i + 1])) / (sq(resp[0][i]) + sq(resp[1][i]))));
                 double dDelay = tau * (grid[i + 1] - grid[i]);
-                if (dph + dDelay > Math.toRadians(MAX_PHASE_STEP_DEG) || dm > MAX_LOG_MAG_STEP) {
-                    extra.add(Math.sqrt(grid[i] * grid[i + 1]));
+                if ((dph + dDelay > Math.toRadians(MAX_PHASE_STEP_DEG) || dm > MAX_LOG_MAG_STEP) && grid[i + 1] > grid[i] * (1 + 1e-12)) {
+                    split[i] = true;
+                    flagged++;
                 }
             }
-            if (extra.isEmpty() || grid.length + extra.size() > MAX_POINTS) break;
-            for (double v : grid) extra.add(v);
-            grid = sortedInBand(extra, lo, hi);
-            resp = respond(grid);
+            if (flagged == 0 || n + flagged > MAX_POINTS) break;
+            double[] mids = new double[flagged];
+            for (int i = 0, k = 0; i + 1 < n; i++) if (split[i]) mids[k++] = Math.sqrt(grid[i] * grid[i + 1]);
+            double[][] mr = respond(mids);
+            double[] g2 = new double[n + flagged], r2 = new double[n + flagged], i2 = new double[n + flagged];
+            for (int i = 0, k = 0, j = 0; i < n; i++) {
+                g2[j] = grid[i]; r2[j] = resp[0][i]; i2[j] = resp[1][i]; j++;
+                if (i + 1 < n && split[i]) { g2[j] = mids[k]; r2[j] = mr[0][k]; i2[j] = mr[1][k]; j++; k++; }
+            }
+            grid = g2;
+            resp = new double[][] {r2, i2};
         }
         this.w = grid;
         int n = grid.length;
@@ -191,9 +206,16 @@ public final class ModelLoop implements LoopResponse {
 
     private double[][] respond(double[] grid) {
         double[] r = new double[grid.length], i = new double[grid.length];
-        rational.response(grid, r, i);
+        double[] v = new double[2];
+        for (int k = 0; k < grid.length; k++) {
+            rationalAt(grid[k], v);
+            r[k] = v[0];
+            i[k] = v[1];
+        }
         return new double[][] {r, i};
     }
+
+    private void rationalAt(double omega, double[] out) { eval.rationalAt(omega, out); }
 
     static double principal(double a) {
         return a - 2 * Math.PI * Math.floor((a + Math.PI) / (2 * Math.PI));
@@ -212,8 +234,9 @@ public final class ModelLoop implements LoopResponse {
     @Override public double phaseRad(int i) { return phaseRational[i] - w[i] * tau; }
 
     @Override public void valueAt(double omega, int i, double[] out) {
-        double[] r = new double[1], m = new double[1];
-        rational.response(new double[] {omega}, r, m);
+        double[] v = new double[2];
+        rationalAt(omega, v);
+        double[] r = {v[0]}, m = {v[1]};
         int j = Math.max(0, Math.min(i, w.length - 2));
         double t = (Math.log(omega) - Math.log(w[j])) / (Math.log(w[j + 1]) - Math.log(w[j]));
         double ref = phaseRational[j] + t * (phaseRational[j + 1] - phaseRational[j]);

@@ -296,6 +296,26 @@ class MarginsModelTest {
         }
     }
 
+    /**
+     * A lightly damped resonance, L = K/(s(s²/ω0² + 2ζs/ω0 + 1)) with ζ = 0.001, ω0 = 100 rad/s, K = 0.1.
+     * By hand: at ω0 the bracket term vanishes, L = K/(jω0·2jζ) = -K/(2ζω0), so the phase crossover is at
+     * ω0 with GM = 2ζω0/K = 2. The exact path (roots in ω²) and the bracketing path (forced by a 1 ns delay,
+     * which moves the crossing by ~1e-10 relative) must both find it: the grid carries a cluster of points at
+     * every lightly damped natural frequency. Tolerance 1e-7 relative.
+     */
+    @Test
+    void lightlyDampedResonanceFoundByBothPaths() {
+        double z = 0.001, w0 = 100, k = 0.1;
+        TransferFunction l = TransferFunction.continuous(new double[] {k}, new double[] {1 / (w0 * w0), 2 * z / w0, 1, 0});
+        for (TransferFunction v : new TransferFunction[] {l, l.withDelay(1e-9)}) {
+            Margins m = Margins.of(v);
+            PhaseCrossover pc = m.upperGainMargin().orElseThrow(() -> new AssertionError(m.toString()));
+            assertEquals(w0, pc.omegaRadPerS(), 1e-7 * w0, m.toString());
+            assertEquals(2 * z * w0 / k, pc.gainMarginRatio(), 1e-7 * 2);
+        }
+        assertEquals(Margins.of(l).phaseMarginDeg().getAsDouble(), Margins.of(l.withDelay(1e-9)).phaseMarginDeg().getAsDouble(), 1e-6);
+    }
+
     // ---------------------------------------------------------------- phase branch, unstable open loop
 
     /**
@@ -341,6 +361,20 @@ class MarginsModelTest {
         assertEquals(0, m.openLoopUnstablePoles().getAsInt());
         assertEquals(6, m.upperGainMargin().orElseThrow().gainMarginRatio(), 1e-9);
         assertEquals(Margins.of(third(1)).phaseMarginDeg().getAsDouble(), m.phaseMarginDeg().getAsDouble(), 1e-9);
+    }
+
+    /**
+     * Single-frequency phase on the right branch: for 1/(s(s+1)(s+2)) at 10 rad/s the phase is
+     * -90° - atan 10 - atan 5 = -252.98° (derivation by hand), not the principal +107.02°; the same on an
+     * Frf of the model (interpolated, 1e-3 deg at this grid density). Outside the band: refused.
+     */
+    @Test
+    void singleFrequencyPhaseIsOnTheCanonicalBranch() {
+        double expected = -90 - Math.toDegrees(Math.atan(10)) - Math.toDegrees(Math.atan(5));
+        assertEquals(expected, Math.toDegrees(LoopResponse.of(third(1)).phaseRadAt(10)), 1e-10);
+        var data = LoopResponse.of(org.loopledger.frf.Frf.ofModel(third(1), org.loopledger.frf.FrequencyGrid.logRadPerS(0.01, 100, 2000)));
+        assertEquals(expected, Math.toDegrees(data.phaseRadAt(10)), 1e-3);
+        assertThrows(IllegalArgumentException.class, () -> data.phaseRadAt(200));
     }
 
     /** Display: units on every figure, every crossing listed (two phase crossovers here), no NaN. */

@@ -54,6 +54,10 @@ class MarginsSampledTest {
                 "hp = L(pth) if pth else []",
                 "out['pc'] = [t / T for t, h in zip(pth, hp) if h.real < 0]",
                 "out['gm'] = [float(-1 / h.real) for h in hp if h.real < 0]",
+                "num8 = np.polymul([1/500**2, 0.02/500, 1], [2, 120])",
+                "den8 = np.polymul(np.polymul([0.01/700**2, 0.01*0.04/700, 0.01, 0], [1, 0]), np.polymul([1/3000**2, 1.4/3000, 1], [1/3000**2, 1.4/3000, 1]))",
+                "b8, a8, _ = signal.cont2discrete((num8, den8), 1/16000, method='zoh')",
+                "out['b8'] = list(map(float, np.squeeze(b8))); out['a8'] = list(map(float, a8))",
                 "print(json.dumps(out))");
         JsonObject req = new JsonObject();
         req.addProperty("T", T);
@@ -135,6 +139,39 @@ class MarginsSampledTest {
             assertTrue(err < prevErr);
             prevErr = err;
         }
+    }
+
+    /** The 8th-order servo loop of the benchmark plus two 3 kHz low-pass filters, continuous (test-local definition). */
+    static TransferFunction servoLoop() {
+        TransferFunction plant = TransferFunction.continuous(new double[] {1.0 / (500 * 500), 0.02 / 500, 1},
+                new double[] {0.01 / (700 * 700), 0.01 * 0.04 / 700, 0.01, 0});
+        TransferFunction pi = TransferFunction.continuous(new double[] {2, 2 * 60}, new double[] {1, 0});
+        TransferFunction lp = TransferFunction.continuous(new double[] {1}, new double[] {1 / (3000.0 * 3000), 2 * 0.7 / 3000, 1});
+        return plant.times(pi).times(lp).times(lp);
+    }
+
+    /**
+     * A high-order sampled loop at a drive rate of 16 kHz: SciPy's zoh of an 8th-order servo loop with a double
+     * integrator. The double pole at z = 1 must count as two integrators (an eigenvalue solver splits it by
+     * ~1e-8, one copy outside the unit circle), no open-loop pole as unstable, and no spurious crossing may
+     * come from cancellation near z = 1. Against the continuous loop: same crossings, and each phase margin
+     * lower by the zoh's half-sample lag ω·T/2 (Franklin, Powell and Workman, Digital Control, 3rd ed., §6.3,
+     * from memory); tolerance 0.05 deg covers the (ωT)² terms at ω·T ≈ 0.05.
+     */
+    @Test
+    void highOrderSampledServoLoopAgainstContinuous() {
+        double ts = 1.0 / 16000;
+        TransferFunction ld = TransferFunction.discrete(arr(py.getAsJsonArray("b8")), arr(py.getAsJsonArray("a8")), ts);
+        Margins md = Margins.of(ld), mc = Margins.of(servoLoop());
+        assertEquals(2, md.netIntegrators(), md.toString());
+        assertEquals(0, md.openLoopUnstablePoles().getAsInt(), md.toString());
+        assertEquals(mc.gainCrossovers().size(), md.gainCrossovers().size(), md.toString());
+        for (int i = 0; i < mc.gainCrossovers().size(); i++) {
+            GainCrossover c = mc.gainCrossovers().get(i), d = md.gainCrossovers().get(i);
+            assertEquals(c.omegaRadPerS(), d.omegaRadPerS(), 2e-3 * c.omegaRadPerS());
+            assertEquals(c.phaseMarginDeg() - Math.toDegrees(c.omegaRadPerS() * ts / 2), d.phaseMarginDeg(), 0.05);
+        }
+        assertTrue(ClosedLoopStability.of(ld).isStable());
     }
 
     /** A sampled FRF must not reach above Nyquist: rejected with the offending frequency named. */
