@@ -6,17 +6,22 @@ import picocli.CommandLine.Parameters;
 import java.util.concurrent.Callable;
 
 /** {@code loopledger bench kernel}: kernel latency against ipykernel (see {@link org.loopledger.kernel.bench.KernelBench}). */
-@Command(name = "bench", description = "Benchmarks: 'kernel' compares start-up and cell latency with ipykernel.")
+@Command(name = "bench", description = "Benchmarks: 'kernel' (start-up and cell latency against ipykernel), 'tune' (auto-tune speed against the general analysis path), 'spectral' (H1 + coherence against SciPy).")
 final class BenchCommand implements Callable<Integer> {
-    @Parameters(index = "0", paramLabel = "WHAT", description = "kernel")
+    @Parameters(index = "0", paramLabel = "WHAT", description = "kernel, tune or spectral")
     String what;
 
     @Override
     public Integer call() throws Exception {
-        if (!"kernel".equals(what)) {
-            System.err.println("unknown benchmark '" + what + "'; available: kernel");
-            return 2;
+        switch (what) {
+            case "kernel": return org.loopledger.kernel.bench.KernelBench.run(System.out);
+            case "tune": return org.loopledger.tune.bench.TuneBench.run(System.out);
+            case "spectral":
+                org.loopledger.ident.bench.SpectralBench.main(new String[0]);
+                return 0;
+            default:
+                System.err.println("unknown benchmark '" + what + "'; available: kernel, tune, spectral");
+                return 2;
         }
-        return org.loopledger.kernel.bench.KernelBench.run(System.out);
     }
 }
