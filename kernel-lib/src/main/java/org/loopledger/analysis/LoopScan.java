@@ -44,48 +44,59 @@ final class LoopScan {
     }
 
     static double logMag(LoopResponse l, int i) {
-        if (l instanceof MeasuredLoop m) return m.logMagnitude(i);
         double r = l.re(i), m = l.im(i);
         return 0.5 * Math.log(r * r + m * m);
     }
 
-    /** Every gain crossover found by sign changes of log|L| on the grid, refined. */
+    /** Every gain crossover found by sign changes of |L|² - 1 on the grid (no logarithms in the scan), refined. */
     static List<Crossing> gainCrossings(LoopResponse l) {
         List<Crossing> out = new ArrayList<>();
         int n = l.size();
-        double h0 = logMag(l, 0);
-        if (h0 == 0) out.add(new Crossing(l.omegaRadPerS(0), 0));
+        double g0 = magSq(l, 0) - 1;
+        if (g0 == 0) out.add(new Crossing(l.omegaRadPerS(0), 0));
         for (int i = 0; i + 1 < n; i++) {
-            double h1 = logMag(l, i + 1);
-            if (h1 == 0) out.add(new Crossing(l.omegaRadPerS(i + 1), Math.min(i + 1, n - 2)));
-            else if (h0 != 0 && (h0 < 0) != (h1 < 0) && Math.max(Math.abs(h0), Math.abs(h1)) > FLAT) out.add(new Crossing(refine(l, i, h0, h1, true, 0), i));
-            h0 = h1;
+            double g1 = magSq(l, i + 1) - 1;
+            if (g1 == 0) {
+                out.add(new Crossing(l.omegaRadPerS(i + 1), Math.min(i + 1, n - 2)));
+            } else if (g0 != 0 && (g0 < 0) != (g1 < 0)) {
+                double h0 = logMag(l, i), h1 = logMag(l, i + 1);
+                if (Math.max(Math.abs(h0), Math.abs(h1)) > FLAT) out.add(new Crossing(refine(l, i, h0, h1, true, 0), i));
+            }
+            g0 = g1;
         }
         return out;
     }
 
-    /** Every crossing of phase = -180° + k·360° on the grid, refined. */
+    private static double magSq(LoopResponse l, int i) {
+        double r = l.re(i), m = l.im(i);
+        return r * r + m * m;
+    }
+
+    /**
+     * Every crossing of phase = -180° + k·360° on the grid, refined. The scan looks for crossings of the
+     * negative real axis on primitive values (no atan2 per point); the level k comes from the canonical
+     * phase at the two ends of each bracket.
+     */
     static List<Crossing> phaseCrossings(LoopResponse l) {
         List<Crossing> out = new ArrayList<>();
         int n = l.size();
         double twoPi = 2 * Math.PI;
-        double p0 = l.phaseRad(0);
-        if (Math.floor((p0 + Math.PI) / twoPi) * twoPi - Math.PI == p0) out.add(new Crossing(l.omegaRadPerS(0), 0));
+        double r0 = l.re(0), i0 = l.im(0);
         for (int i = 0; i + 1 < n; i++) {
-            double p1 = l.phaseRad(i + 1);
-            double a = Math.floor((p0 + Math.PI) / twoPi), b = Math.floor((p1 + Math.PI) / twoPi);
-            if (a != b) {
-                // levels m with target 2πm - π strictly passed between the two points
+            double r1 = l.re(i + 1), i1 = l.im(i + 1);
+            if (MeasuredLoop.negativeAxisCrossing(r0, i0, r1, i1) != 0) {
+                double p0 = l.phaseRad(i), p1 = l.phaseRad(i + 1);
+                double a = Math.floor((p0 + Math.PI) / twoPi), b = Math.floor((p1 + Math.PI) / twoPi);
                 double lo = Math.min(a, b) + 1, hi = Math.max(a, b);
                 for (double m = lo; m <= hi; m++) {
                     double target = twoPi * m - Math.PI;
-                    if (p1 == target && i + 1 < n - 1) continue; // counted from the next interval
                     out.add(new Crossing(refine(l, i, p0 - target, p1 - target, false, target), i));
                 }
             }
-            p0 = p1;
+            r0 = r1;
+            i0 = i1;
         }
-        return out;
+        return dedupe(out);
     }
 
     /** Root of f in [ω<sub>i</sub>, ω<sub>i+1</sub>] with f(ω<sub>i</sub>) = f0, f(ω<sub>i+1</sub>) = f1 of opposite signs. */
@@ -139,6 +150,23 @@ final class LoopScan {
             return closedSq(kind, v[0], v[1]);
         };
         double value = bestV, omega = wb;
+        if (!l.isExact()) {
+            // data: the vertex of the parabola through the three points around the best one (in ln ω), on the interpolant
+            if (best > 0 && best < n - 1) {
+                double x0 = Math.log(l.omegaRadPerS(best - 1)), x1 = Math.log(wb), x2 = Math.log(l.omegaRadPerS(best + 1));
+                double f0 = closedSq(kind, l.re(best - 1), l.im(best - 1)), f2 = closedSq(kind, l.re(best + 1), l.im(best + 1));
+                double num = (x1 - x0) * (x1 - x0) * (bestV - f2) - (x1 - x2) * (x1 - x2) * (bestV - f0);
+                double den = (x1 - x0) * (bestV - f2) - (x1 - x2) * (bestV - f0);
+                if (den != 0) {
+                    double x = Math.max(x0, Math.min(x2, x1 - 0.5 * num / den));
+                    double w = Math.exp(x);
+                    l.valueAt(w, w < wb ? best - 1 : best, v);
+                    double fv = closedSq(kind, v[0], v[1]);
+                    if (fv > value) { value = fv; omega = w; }
+                }
+            }
+            return new Extremum(value, omega, best == 0 || best == n - 1);
+        }
         try {
             UnivariatePointValuePair p = new BrentOptimizer(1e-12, 1e-14).optimize(new MaxEval(MAX_EVAL), new UnivariateObjectiveFunction(f),
                     GoalType.MAXIMIZE, new SearchInterval(Math.log(l.omegaRadPerS(a)), Math.log(l.omegaRadPerS(b)), Math.log(wb)));
@@ -167,6 +195,7 @@ final class LoopScan {
                     return 0.5 * Math.log(closedSq(Closed.COMPLEMENTARY, v[0], v[1]) / thrSq);
                 };
                 double x0 = Math.log(l.omegaRadPerS(k)), x1 = Math.log(l.omegaRadPerS(i));
+                if (!l.isExact()) return illinois(f, x0, x1);
                 try {
                     return Math.exp(new BrentSolver(1e-15, 1e-15, 0).solve(MAX_EVAL, f, x0, x1));
                 } catch (RuntimeException e) {
@@ -175,6 +204,30 @@ final class LoopScan {
             }
         }
         return Double.NaN;
+    }
+
+    /** Regula falsi with the Illinois modification, a few steps: cheap root of a smooth interpolant in ln ω. */
+    private static double illinois(UnivariateFunction f, double a, double b) {
+        double fa = f.value(a), fb = f.value(b);
+        if (fa == 0) return Math.exp(a);
+        if (fb == 0 || (fa > 0) == (fb > 0)) return Math.exp(b);
+        int side = 0;
+        for (int it = 0; it < 12 && Math.abs(b - a) > 1e-13; it++) {
+            double c = (a * fb - b * fa) / (fb - fa);
+            double fc = f.value(c);
+            if (fc == 0) return Math.exp(c);
+            if ((fc > 0) == (fb > 0)) {
+                b = c; fb = fc;
+                if (side == -1) fa /= 2;
+                side = -1;
+            } else {
+                a = c; fa = fc;
+                if (side == 1) fb /= 2;
+                side = 1;
+            }
+            if (Math.abs(fc) < 1e-14) return Math.exp(c);
+        }
+        return Math.exp((a * fb - b * fa) / (fb - fa));
     }
 
     /** Sorted union of {@code exact} and {@code scanned}, dropping scanned crossings within 1e-7 relative of an exact one. */

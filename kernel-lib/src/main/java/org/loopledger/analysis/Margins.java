@@ -10,6 +10,7 @@ import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.OptionalInt;
+import java.util.function.Supplier;
 
 /**
  * Stability margins of a loop gain L, all crossings listed:
@@ -31,7 +32,7 @@ import java.util.OptionalInt;
  * Multivariable Feedback Control, 2nd ed., §2.4 (GM, PM, Ms, Mt, bandwidth of T).
  */
 public final class Margins {
-    private final String source;
+    private final Supplier<String> source;
     private final double lowRadPerS;
     private final double highRadPerS;
     private final boolean measured;
@@ -44,9 +45,11 @@ public final class Margins {
     private final int netIntegrators;
     private final OptionalInt openLoopUnstablePoles;
     private final int polesOnAxis;
-    private final List<String> warnings;
+    private final List<Supplier<String>> warningTexts;
+    private List<String> warnings; // formatted on first use (string formatting is costly in tuning loops)
 
-    private Margins(String source, LoopResponse l, List<GainCrossover> gc, List<PhaseCrossover> pc, Peak ms, Peak mt, Bandwidth bw, List<String> warnings) {
+    private Margins(Supplier<String> source, LoopResponse l, List<GainCrossover> gc, List<PhaseCrossover> pc, Peak ms, Peak mt, Bandwidth bw,
+                    List<Supplier<String>> warnings) {
         this.source = source;
         this.lowRadPerS = l.lowRadPerS();
         this.highRadPerS = l.highRadPerS();
@@ -60,7 +63,7 @@ public final class Margins {
         this.netIntegrators = l.netIntegrators();
         this.openLoopUnstablePoles = l.openLoopUnstablePoles();
         this.polesOnAxis = l.openLoopPolesOnAxis();
-        this.warnings = List.copyOf(warnings);
+        this.warningTexts = List.copyOf(warnings);
     }
 
     /** Margins of a model loop gain (continuous or sampled, with or without delay). */
@@ -71,12 +74,13 @@ public final class Margins {
 
     /** Fast path: margins of a measured loop given as primitive arrays (rad/s, Re L, Im L). */
     public static Margins ofArrays(double[] omegaRadPerS, double[] re, double[] im) {
-        return of(MeasuredLoop.ofArrays(omegaRadPerS, re, im));
+        // the loop does not escape this call (the result keeps figures only), so the arrays need no copy
+        return of(MeasuredLoop.validatedView(omegaRadPerS, re, im));
     }
 
     /** Margins of any loop response. */
     public static Margins of(LoopResponse l) {
-        List<String> warn = new ArrayList<>();
+        List<Supplier<String>> warn = new ArrayList<>();
         OptionalDouble ts = l.sampleTimeS();
         double[] v = new double[3];
 
@@ -136,43 +140,55 @@ public final class Margins {
         Peak mt = new Peak(Math.sqrt(t.value()), t.omegaRadPerS(), t.atEdge());
         Bandwidth bw = bandwidth(l);
 
-        // warnings
+        // warnings: numbers captured now, text formatted on first use
+        final double hiW = l.highRadPerS(), loW = l.lowRadPerS();
+        final int nInt = l.netIntegrators();
         if (l instanceof ModelLoop ml) {
-            if (ml.degenerateGain()) warn.add("|L| = 1 at every frequency (all-pass loop): gain crossovers are not isolated points");
-            if (ml.degeneratePhase()) warn.add("L is real over whole frequency intervals: phase crossovers are not isolated points");
+            if (ml.degenerateGain()) warn.add(() -> "|L| = 1 at every frequency (all-pass loop): gain crossovers are not isolated points");
+            if (ml.degeneratePhase()) warn.add(() -> "L is real over whole frequency intervals: phase crossovers are not isolated points");
             if (ml.delayS() > 0 && ts.isEmpty()) {
-                warn.add("the delay adds phase crossovers without end; listed up to " + Fmt.hz(l.highRadPerS()) + " (ten times the highest pole, zero or crossover frequency, and at least 3 delay periods)");
+                warn.add(() -> "the delay adds phase crossovers without end; listed up to " + Fmt.hz(hiW) + " (ten times the highest pole, zero or crossover frequency, and at least 3 delay periods)");
             }
             int other = l.openLoopPolesOnAxis() - Math.max(0, l.netIntegrators());
-            if (other > 0) warn.add(other + " open-loop pole(s) on the imaginary axis (unit circle) besides integrators: |L| is infinite there");
+            if (other > 0) warn.add(() -> other + " open-loop pole(s) on the imaginary axis (unit circle) besides integrators: |L| is infinite there");
         }
         OptionalInt unstable = l.openLoopUnstablePoles();
         if (unstable.isPresent() && unstable.getAsInt() > 0) {
-            warn.add("the open loop has " + unstable.getAsInt() + " unstable pole(s): margins alone do not decide closed-loop stability; use ClosedLoopStability");
+            warn.add(() -> "the open loop has " + unstable.getAsInt() + " unstable pole(s): margins alone do not decide closed-loop stability; use ClosedLoopStability");
         }
         if (l.isMeasured()) {
             int last = l.size() - 1;
             double magTop = Math.exp(LoopScan.logMag(l, last));
             double magBottom = Math.exp(LoopScan.logMag(l, 0));
             if (magTop > 1) {
-                warn.add("|L| is still " + Fmt.db(Units.ratioToDb(magTop)) + " at the top of the band (" + Fmt.hz(l.highRadPerS())
+                warn.add(() -> "|L| is still " + Fmt.db(Units.ratioToDb(magTop)) + " at the top of the band (" + Fmt.hz(hiW)
                         + "): a gain crossover lies above the measured band; margins there are unknown");
             }
             if (magBottom < 1) {
-                warn.add("|L| is already " + Fmt.db(Units.ratioToDb(magBottom)) + " at the bottom of the band (" + Fmt.hz(l.lowRadPerS())
+                warn.add(() -> "|L| is already " + Fmt.db(Units.ratioToDb(magBottom)) + " at the bottom of the band (" + Fmt.hz(loW)
                         + "): a gain crossover may lie below the measured band");
             }
-            if (gain.isEmpty()) warn.add("no gain crossover in the measured band: phase margin none in band");
+            if (gain.isEmpty()) warn.add(() -> "no gain crossover in the measured band: phase margin none in band");
             if (phase.isEmpty()) {
-                warn.add("no phase crossover in the measured band: the gain margin may be set above " + Fmt.hz(l.highRadPerS())
+                warn.add(() -> "no phase crossover in the measured band: the gain margin may be set above " + Fmt.hz(hiW)
                         + " (|L| there " + Fmt.db(Units.ratioToDb(magTop)) + ")");
             }
-            if (ms.atBandEdge()) warn.add("peak |S| sits at the band edge " + Fmt.hz(ms.omegaRadPerS()) + ": the true Ms may lie outside the band");
+            if (ms.atBandEdge()) warn.add(() -> "peak |S| sits at the band edge " + Fmt.hz(ms.omegaRadPerS()) + ": the true Ms may lie outside the band");
             if (l instanceof MeasuredLoop m && !m.integratorsStated()) {
-                warn.add("net integrators estimated from the low-frequency slope: " + l.netIntegrators() + " (state them with withIntegrators if known)");
+                warn.add(() -> "net integrators estimated from the low-frequency slope: " + nInt + " (state them with withIntegrators if known)");
             }
         }
-        return new Margins(l.describe(), l, gain, phase, ms, mt, bw, warn);
+        Supplier<String> source;
+        if (l.isMeasured()) {
+            int size = l.size();
+            OptionalDouble tsCopy = l.sampleTimeS();
+            source = () -> "measured data, " + size + " points, " + Fmt.hz(loW) + " .. " + Fmt.hz(hiW)
+                    + (tsCopy.isPresent() ? ", sampled at " + org.loopledger.lti.Units.formatHz(1 / tsCopy.getAsDouble()) : "");
+        } else {
+            String d = l.describe();
+            source = () -> d;
+        }
+        return new Margins(source, l, gain, phase, ms, mt, bw, warn);
     }
 
     private static Bandwidth bandwidth(LoopResponse l) {
@@ -276,13 +292,20 @@ public final class Margins {
     public double highRadPerS() { return highRadPerS; }
 
     /** Warnings and notes (band coverage, degenerate cases), in plain words. */
-    public List<String> warnings() { return warnings; }
+    public List<String> warnings() {
+        List<String> w = warnings;
+        if (w == null) {
+            w = warningTexts.stream().map(Supplier::get).toList();
+            warnings = w;
+        }
+        return w;
+    }
 
     private String none() { return measured ? "none in band" : "no crossover"; }
 
     @Override public String toString() {
         StringBuilder b = new StringBuilder();
-        b.append("Margins (").append(source).append(")\n");
+        b.append("Margins (").append(source.get()).append(")\n");
         b.append("  gain margin (increase): ").append(upperGainMargin().map(p -> Fmt.db(p.gainMarginDb()) + " (x" + Fmt.num(p.gainMarginRatio()) + ") at " + Fmt.hz(p.omegaRadPerS())).orElse(none())).append('\n');
         b.append("  gain margin (decrease): ").append(lowerGainMargin().map(p -> Fmt.db(p.gainMarginDb()) + " (x" + Fmt.num(p.gainMarginRatio()) + ") at " + Fmt.hz(p.omegaRadPerS())).orElse(none())).append('\n');
         b.append("  phase margin:           ").append(phaseMargin().map(g -> Fmt.deg(g.phaseMarginDeg()) + " at " + Fmt.hz(g.omegaRadPerS())).orElse(none())).append('\n');
@@ -315,7 +338,7 @@ public final class Margins {
                         .append(Fmt.num(p.distanceToMinusOne())).append('\n');
             }
         }
-        for (String w : warnings) b.append("  note: ").append(w).append('\n');
+        for (String w : warnings()) b.append("  note: ").append(w).append('\n');
         return b.toString().stripTrailing();
     }
 }

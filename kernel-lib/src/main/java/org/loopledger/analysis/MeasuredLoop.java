@@ -16,16 +16,15 @@ import java.util.OptionalInt;
  * unless stated ({@link #withIntegrators}); {@link #withPhaseAnchorDeg} fixes the branch explicitly
  * (for instance -180° for a loop whose low-frequency gain is negative).
  *
- * <p>The fast path {@link #ofArrays} takes primitive arrays directly (copied once); the core loops
+ * <p>The fast path {@link #ofArrays} (and {@link Margins#ofArrays}, which does not even copy) takes primitive arrays directly; the core loops
  * then run on primitive arrays without any {@code Complex} objects.
  */
 public final class MeasuredLoop implements LoopResponse {
     private final double[] w;
     private final double[] re;
     private final double[] im;
-    private final double[] logW;
-    private final double[] logMag;
-    private final double[] phase;
+    /** Unwrapped phase = atan2(im, re) + 2π·turns[i]; found without atan2 from negative-real-axis crossings. */
+    private final int[] turns;
     private final double ts;            // 0: continuous
     private final int integrators;
     private final boolean integratorsStated;
@@ -40,20 +39,32 @@ public final class MeasuredLoop implements LoopResponse {
         this.unstable = unstable;
         this.anchorRad = anchorRad;
         int n = w.length;
-        logW = new double[n];
-        logMag = new double[n];
-        phase = new double[n];
-        for (int i = 0; i < n; i++) {
-            logW[i] = Math.log(w[i]);
-            logMag[i] = 0.5 * Math.log(re[i] * re[i] + im[i] * im[i]);
-            phase[i] = Math.atan2(im[i], re[i]);
+        // unwrap by counting crossings of the negative real axis (the branch cut of atan2): crossing it
+        // anticlockwise (upper to lower half plane) adds a turn, clockwise removes one. No atan2 per point.
+        turns = new int[n];
+        int k = 0;
+        for (int i = 1; i < n; i++) {
+            k += negativeAxisCrossing(re[i - 1], im[i - 1], re[i], im[i]);
+            turns[i] = k;
         }
-        for (int i = 1; i < n; i++) phase[i] = phase[i - 1] + ModelLoop.principal(phase[i] - phase[i - 1]);
         this.integratorsStated = stated;
         this.integrators = stated ? integrators : estimateIntegrators();
         double anchor = Double.isNaN(anchorRad) ? -this.integrators * Math.PI / 2 : anchorRad;
-        double shift = 2 * Math.PI * Math.round((anchor - phase[0]) / (2 * Math.PI));
-        for (int i = 0; i < n; i++) phase[i] += shift;
+        double p0 = Math.atan2(im[0], re[0]);
+        int shift = (int) Math.round((anchor - p0) / (2 * Math.PI));
+        for (int i = 0; i < n; i++) turns[i] += shift;
+    }
+
+    /**
+     * +1 when the shorter arc from a to b crosses the negative real axis anticlockwise (atan2 jumps from +π
+     * to -π), -1 clockwise, 0 otherwise. The upper half plane includes Im = 0.
+     */
+    static int negativeAxisCrossing(double ar, double ai, double br, double bi) {
+        boolean aUp = ai >= 0, bUp = bi >= 0;
+        if (aUp == bUp) return 0;
+        double cross = ar * bi - ai * br;
+        if (aUp) return cross > 0 || (cross == 0 && ar < 0) ? 1 : 0;
+        return cross < 0 || (cross == 0 && ar < 0) ? -1 : 0;
     }
 
     /** A measured continuous-time loop gain. */
@@ -84,6 +95,17 @@ public final class MeasuredLoop implements LoopResponse {
      * increasing and positive, values finite, at least two points.
      */
     public static MeasuredLoop ofArrays(double[] omegaRadPerS, double[] re, double[] im) {
+        validate(omegaRadPerS, re, im);
+        return new MeasuredLoop(omegaRadPerS.clone(), re.clone(), im.clone(), 0, 0, false, -1, Double.NaN);
+    }
+
+    /** Validated but not copied: only for callers that do not let the loop escape while the arrays may change. */
+    static MeasuredLoop validatedView(double[] omegaRadPerS, double[] re, double[] im) {
+        validate(omegaRadPerS, re, im);
+        return new MeasuredLoop(omegaRadPerS, re, im, 0, 0, false, -1, Double.NaN);
+    }
+
+    private static void validate(double[] omegaRadPerS, double[] re, double[] im) {
         if (omegaRadPerS == null || re == null || im == null) throw new IllegalArgumentException("frequency, real and imaginary arrays must not be null");
         if (re.length != omegaRadPerS.length || im.length != omegaRadPerS.length) {
             throw new IllegalArgumentException("arrays have different lengths: " + omegaRadPerS.length + " frequencies, " + re.length
@@ -100,7 +122,6 @@ public final class MeasuredLoop implements LoopResponse {
                         + "; values must be finite and non-zero; drop that point");
             }
         }
-        return new MeasuredLoop(omegaRadPerS.clone(), re.clone(), im.clone(), 0, 0, false, -1, Double.NaN);
     }
 
     /** Same data with a stated number of open-loop unstable poles (needed for the Nyquist criterion). */
@@ -123,10 +144,9 @@ public final class MeasuredLoop implements LoopResponse {
 
     private int estimateIntegrators() {
         int n = w.length;
-        if (n < 2) return 0;
         int j = 1;
-        while (j < n - 1 && logW[j] - logW[0] < Math.log(1.5)) j++;
-        double slope = (logMag[j] - logMag[0]) / (logW[j] - logW[0]);
+        while (j < n - 1 && w[j] < 1.5 * w[0]) j++;
+        double slope = (logMagnitude(j) - logMagnitude(0)) / Math.log(w[j] / w[0]);
         long k = Math.round(-slope);
         return (int) Math.max(-3, Math.min(4, k));
     }
@@ -139,26 +159,24 @@ public final class MeasuredLoop implements LoopResponse {
 
     @Override public double im(int i) { return im[i]; }
 
-    @Override public double phaseRad(int i) { return phase[i]; }
+    @Override public double phaseRad(int i) { return Math.atan2(im[i], re[i]) + 2 * Math.PI * turns[i]; }
 
     /** Interpolation in log ω on log|L| and unwrapped phase (no extrapolation: ω is clamped to the bracket). */
     @Override public void valueAt(double omega, int i, double[] out) {
         int j = Math.max(0, Math.min(i, w.length - 2));
-        double x = Math.log(omega);
-        double t = (x - logW[j]) / (logW[j + 1] - logW[j]);
+        double t = Math.log(omega / w[j]) / Math.log(w[j + 1] / w[j]);
         t = Math.max(0, Math.min(1, t));
-        double lm = logMag[j] + t * (logMag[j + 1] - logMag[j]);
-        double p = phase[j] + t * (phase[j + 1] - phase[j]);
-        double m = Math.exp(lm);
+        double lm0 = logMagnitude(j), lm1 = logMagnitude(j + 1);
+        double p0 = phaseRad(j), p1 = phaseRad(j + 1);
+        double m = Math.exp(lm0 + t * (lm1 - lm0));
+        double p = p0 + t * (p1 - p0);
         out[0] = m * Math.cos(p);
         out[1] = m * Math.sin(p);
         out[2] = p;
     }
 
     /** log|L| at grid point i (natural log). */
-    double logMagnitude(int i) { return logMag[i]; }
-
-    double logOmega(int i) { return logW[i]; }
+    double logMagnitude(int i) { return 0.5 * Math.log(re[i] * re[i] + im[i] * im[i]); }
 
     @Override public boolean isExact() { return false; }
 

@@ -27,12 +27,26 @@ public final class StateSpace {
         this.timeBase = timeBase;
     }
 
+    /** From A (n×n), B and C (n entries each), D and the time base; all copied, all entries finite. */
     public static StateSpace of(double[][] a, double[] b, double[] c, double d, TimeBase timeBase) {
+        java.util.Objects.requireNonNull(timeBase, "time base");
         int n = a.length;
-        if (b.length != n || c.length != n) throw new IllegalArgumentException("A is " + n + "x" + n + " but B has " + b.length + " and C " + c.length + " entries");
-        RealMatrix am = n == 0 ? null : MatrixUtils.createRealMatrix(a);
         if (n == 0) throw new IllegalArgumentException("a state-space model needs at least one state; a static gain is a TransferFunction.gain");
-        return new StateSpace(am, MatrixUtils.createColumnRealMatrix(b), MatrixUtils.createRowRealMatrix(c), d, timeBase);
+        for (int i = 0; i < n; i++) {
+            if (a[i].length != n) throw new IllegalArgumentException("A must be square: it has " + n + " rows but row " + i + " has " + a[i].length + " entries");
+        }
+        if (b.length != n || c.length != n) throw new IllegalArgumentException("A is " + n + "x" + n + " but B has " + b.length + " and C " + c.length + " entries");
+        for (int i = 0; i < n; i++) {
+            for (int j = 0; j < n; j++) requireFinite(a[i][j], "A(" + i + "," + j + ")");
+            requireFinite(b[i], "B(" + i + ")");
+            requireFinite(c[i], "C(" + i + ")");
+        }
+        requireFinite(d, "D");
+        return new StateSpace(MatrixUtils.createRealMatrix(a), MatrixUtils.createColumnRealMatrix(b), MatrixUtils.createRowRealMatrix(c), d, timeBase);
+    }
+
+    private static void requireFinite(double v, String what) {
+        if (!Double.isFinite(v)) throw new IllegalArgumentException("state-space entry " + what + " is " + v + "; every entry must be a finite number");
     }
 
     /** Control canonical realisation of a proper transfer function (its delay is not part of the realisation). */

@@ -125,22 +125,48 @@ public final class TransferFunction {
     public List<Complex> zeros() { return num.isZero() ? List.of() : num.roots(); }
 
     /**
-     * Steady-state gain: G(0) in continuous time, G(1) in discrete time. Infinite (signed by the
-     * numerator) when there is a pole at s = 0 (z = 1); 0 for a zero there.
+     * Steady-state gain: G(0) in continuous time, G(1) in discrete time. Roots at s = 0 (z = 1) are
+     * counted in numerator and denominator and cancelled; with more poles than zeros there the gain is
+     * infinite, signed like the residue lim G·s<sup>m</sup> (so 1/(s(s - 2)) gives -∞); with more zeros it is 0.
+     *
+     * <p>A root counts as being at s = 0 (z = 1) when the polynomial's value there is below 1e-12 of the
+     * sum of its coefficients' magnitudes, i.e. at the rounding-noise level of coefficient form (DESIGN:
+     * an integrator computed as -1e-15, or a ZOH pole at z = 1 ± 1e-16, is an integrator).
      */
     public double dcGain() {
+        if (num.isZero()) return 0.0;
         double x = isDiscrete() ? 1.0 : 0.0;
-        double n = num.evaluate(x);
-        double d = den.evaluate(x);
-        if (d == 0) return n == 0 ? withoutCancelledDcFactor() : Math.copySign(Double.POSITIVE_INFINITY, n);
-        return n / d;
+        double[] n = num.coefficientsDescending(), d = den.coefficientsDescending();
+        int mn = 0, md = 0;
+        while (n.length > 1 && atDc(n, x)) { n = deflate(n, x); mn++; }
+        while (d.length > 1 && atDc(d, x)) { d = deflate(d, x); md++; }
+        double ratio = horner(n, x) / horner(d, x);
+        if (mn > md) return 0.0;
+        if (mn == md) return ratio;
+        return Math.copySign(Double.POSITIVE_INFINITY, ratio);
     }
 
-    private double withoutCancelledDcFactor() {
-        TransferFunction m = minimal(1e-9);
-        double x = isDiscrete() ? 1.0 : 0.0;
-        double d = m.den.evaluate(x);
-        return d == 0 ? Math.copySign(Double.POSITIVE_INFINITY, m.num.evaluate(x)) : m.num.evaluate(x) / d;
+    private static double horner(double[] c, double x) {
+        double r = 0;
+        for (double v : c) r = r * x + v;
+        return r;
+    }
+
+    private static boolean atDc(double[] c, double x) {
+        double scale = 0;
+        for (double v : c) scale += Math.abs(v);
+        return Math.abs(horner(c, x)) <= 1e-12 * scale;
+    }
+
+    /** c(x)/(x - x0) by synthetic division, remainder (rounding noise) dropped. */
+    private static double[] deflate(double[] c, double x0) {
+        double[] q = new double[c.length - 1];
+        double acc = 0;
+        for (int i = 0; i < q.length; i++) {
+            acc = acc * x0 + c[i];
+            q[i] = acc;
+        }
+        return q;
     }
 
     /** G(jω) (or G(e<sup>jωT</sup>)), ω in rad/s. */
@@ -336,6 +362,30 @@ public final class TransferFunction {
     }
 
     @Override public int hashCode() { return Objects.hash(num, den, timeBase, delayS); }
+
+    /**
+     * LaTeX for display, e.g. {@code \frac{s + 1}{s^{2} + 3 s + 2} e^{-0.001 s}}. A delay shows as
+     * e<sup>-τs</sup> in continuous time and as z<sup>-τ/T</sup> (possibly fractional) when sampled; a
+     * sampled system also states its sample time. Coefficients to 4 significant digits.
+     */
+    public String toLatex() {
+        String v = isDiscrete() ? "z" : "s";
+        StringBuilder sb = new StringBuilder();
+        boolean unitDen = den.degree() == 0 && den.leading() == 1.0;
+        if (unitDen) sb.append(num.toLatex(v));
+        else sb.append("\\frac{").append(num.toLatex(v)).append("}{").append(den.toLatex(v)).append('}');
+        if (delayS > 0) {
+            if (timeBase instanceof TimeBase.Sampled sm) {
+                sb.append(" \\, z^{-").append(Units.g4(delayS / sm.sampleTimeS())).append('}');
+            } else {
+                sb.append(" \\, e^{-").append(Polynomial.latexNumber(delayS)).append(" s}");
+            }
+        }
+        if (timeBase instanceof TimeBase.Sampled sm) {
+            sb.append(" \\qquad T = ").append(Polynomial.latexNumber(sm.sampleTimeS())).append("\\,\\mathrm{s}");
+        }
+        return sb.toString();
+    }
 
     /** e.g. {@code (s + 1) / (s^2 + 3 s + 2)}, with the delay and the sample time when present. */
     @Override public String toString() {

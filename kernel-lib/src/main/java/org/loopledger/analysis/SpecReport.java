@@ -1,0 +1,74 @@
+package org.loopledger.analysis;
+
+import java.util.List;
+import java.util.OptionalDouble;
+
+/**
+ * The outcome of checking a {@link Spec}: one row per requirement with the limit, the achieved value
+ * and the frequency where it is achieved, and the warnings of the underlying margin analysis.
+ *
+ * @param rows     one per requirement, in the order of {@link Spec}'s fields
+ * @param warnings analysis warnings (band coverage, estimated integrators, ...)
+ */
+public record SpecReport(List<Row> rows, List<String> warnings) {
+
+    public SpecReport {
+        rows = List.copyOf(rows);
+        warnings = List.copyOf(warnings);
+    }
+
+    /**
+     * One requirement.
+     *
+     * @param requirement   what is required, in words
+     * @param limit         the limit with its unit
+     * @param achieved      the achieved value with its unit (or why there is none)
+     * @param frequencyHz   where it is achieved (empty when not applicable)
+     * @param pass          whether the requirement is met
+     * @param achievedValue the achieved value in the limit's unit (Hz, deg, dB, ratio, s); NaN when there is none
+     * @param limitValue    the limit in the same unit
+     */
+    public record Row(String requirement, String limit, String achieved, OptionalDouble frequencyHz, boolean pass,
+                      double achievedValue, double limitValue) {
+        @Override public String toString() {
+            return (pass ? "PASS " : "FAIL ") + requirement + ": " + achieved + " (limit " + limit + ")"
+                    + (frequencyHz.isPresent() ? " at " + org.loopledger.lti.Units.formatHz(frequencyHz.getAsDouble()) : "");
+        }
+    }
+
+    /** True when every requirement passes. */
+    public boolean passed() { return rows.stream().allMatch(Row::pass); }
+
+    /** The requirements that fail. */
+    public List<Row> failures() { return rows.stream().filter(r -> !r.pass()).toList(); }
+
+    /** A plain-text table: requirement, limit, achieved, frequency, verdict. */
+    @Override public String toString() {
+        String[] head = {"requirement", "limit", "achieved", "at", "result"};
+        int[] w = new int[head.length];
+        for (int i = 0; i < head.length; i++) w[i] = head[i].length();
+        String[][] cells = new String[rows.size()][];
+        for (int r = 0; r < rows.size(); r++) {
+            Row row = rows.get(r);
+            cells[r] = new String[] {row.requirement(), row.limit(), row.achieved(),
+                    row.frequencyHz().isPresent() ? org.loopledger.lti.Units.formatHz(row.frequencyHz().getAsDouble()) : "-",
+                    row.pass() ? "pass" : "FAIL"};
+            for (int i = 0; i < w.length; i++) w[i] = Math.max(w[i], cells[r][i].length());
+        }
+        StringBuilder b = new StringBuilder("Spec check: ").append(passed() ? "all requirements met" : failures().size() + " of " + rows.size() + " requirements FAIL").append('\n');
+        line(b, head, w);
+        StringBuilder rule = new StringBuilder();
+        for (int i = 0; i < w.length; i++) rule.append("-".repeat(w[i])).append(i + 1 < w.length ? "  " : "");
+        b.append(rule).append('\n');
+        for (String[] c : cells) line(b, c, w);
+        for (String x : warnings) b.append("note: ").append(x).append('\n');
+        return b.toString().stripTrailing();
+    }
+
+    private static void line(StringBuilder b, String[] c, int[] w) {
+        for (int i = 0; i < c.length; i++) {
+            b.append(i + 1 < c.length ? Fmt.pad(c[i], w[i] + 2) : c[i]);
+        }
+        b.append('\n');
+    }
+}

@@ -1,0 +1,50 @@
+package org.loopledger.ident.fit;
+
+import org.loopledger.lti.TransferFunction;
+
+import java.util.Locale;
+
+/**
+ * Two-mass axis in modal form, current to motor velocity:
+ * <pre>
+ *   G(s) = K<sub>t</sub>/(J·s + b) · (s²/ω<sub>a</sub>² + 2ζ<sub>a</sub>s/ω<sub>a</sub> + 1) / (s²/ω<sub>r</sub>² + 2ζ<sub>r</sub>s/ω<sub>r</sub> + 1) · e<sup>-sτ</sup>
+ * </pre>
+ * (to position: one more 1/s). For an undamped coupling the inertia ratio is
+ * R = J<sub>l</sub>/J<sub>m</sub> = (ω<sub>r</sub>/ω<sub>a</sub>)² - 1, J<sub>m</sub> = J/(1 + R), and the
+ * stiffness k = J<sub>l</sub>ω<sub>a</sub>² (common practice for the two-mass model).
+ *
+ * @param inertiaKgM2       J, total inertia at the motor
+ * @param viscousNmsPerRad  b
+ * @param resonanceHz       f<sub>r</sub> = ω<sub>r</sub>/2π
+ * @param resonanceDamping  ζ<sub>r</sub>
+ * @param antiresonanceHz   f<sub>a</sub> = ω<sub>a</sub>/2π
+ * @param antiresonanceDamping ζ<sub>a</sub>
+ * @param delayS            τ
+ */
+public record TwoMassParameters(double inertiaKgM2, double viscousNmsPerRad, double resonanceHz, double resonanceDamping,
+                                double antiresonanceHz, double antiresonanceDamping, double delayS) {
+
+    public double inertiaRatio() { return Math.pow(resonanceHz / antiresonanceHz, 2) - 1; }
+
+    public double motorInertiaKgM2() { return inertiaKgM2 / (1 + inertiaRatio()); }
+
+    public double loadInertiaKgM2() { return inertiaKgM2 - motorInertiaKgM2(); }
+
+    public double stiffnessNmPerRad() { return loadInertiaKgM2() * Math.pow(2 * Math.PI * antiresonanceHz, 2); }
+
+    /** The continuous model from current (A) to velocity (rad/s) or, with {@code toPosition}, to position (rad). */
+    public TransferFunction model(double torqueConstantNmPerA, boolean toPosition) {
+        double wa = 2 * Math.PI * antiresonanceHz, wr = 2 * Math.PI * resonanceHz;
+        double[] num = {torqueConstantNmPerA / (wa * wa), torqueConstantNmPerA * 2 * antiresonanceDamping / wa, torqueConstantNmPerA};
+        double[] mode = {1 / (wr * wr), 2 * resonanceDamping / wr, 1};
+        double[] den = {inertiaKgM2 * mode[0], inertiaKgM2 * mode[1] + viscousNmsPerRad * mode[0], inertiaKgM2 * mode[2] + viscousNmsPerRad * mode[1], viscousNmsPerRad * mode[2]};
+        if (toPosition) den = new double[] {den[0], den[1], den[2], den[3], 0};
+        return TransferFunction.continuous(num, den).withDelay(delayS);
+    }
+
+    @Override public String toString() {
+        return String.format(Locale.ROOT, "two-mass: J = %.5g kg·m², b = %.4g N·m·s/rad, resonance %.5g Hz (ζ %.4g), antiresonance %.5g Hz (ζ %.4g), "
+                        + "inertia ratio %.4g, delay %.4g µs", inertiaKgM2, viscousNmsPerRad, resonanceHz, resonanceDamping, antiresonanceHz,
+                antiresonanceDamping, inertiaRatio(), delayS * 1e6);
+    }
+}

@@ -1,0 +1,26 @@
+package org.loopledger.sim;
+
+/** What drives a simulated response. */
+public enum Excitation {
+    /** Position reference step, both loops closed; reference and following error in rad. */
+    POSITION_STEP("position step", "rad"),
+    /** Position reference ramp r = rate·t, both loops closed; reference and following error in rad. */
+    POSITION_RAMP("position ramp", "rad"),
+    /** Velocity command step with the position loop open; reference and following error in rad/s. */
+    VELOCITY_STEP("velocity step", "rad/s"),
+    /** Torque-disturbance step at the plant input (plant-input units, e.g. A), reference 0, both loops closed. */
+    TORQUE_DISTURBANCE_STEP("torque-disturbance step", "rad");
+
+    private final String label;
+    private final String errorUnit;
+
+    Excitation(String label, String errorUnit) {
+        this.label = label;
+        this.errorUnit = errorUnit;
+    }
+
+    public String label() { return label; }
+
+    /** Unit of the reference and of the following error. */
+    public String errorUnit() { return errorUnit; }
+}

@@ -1,0 +1,199 @@
+package org.loopledger.tune;
+
+import org.loopledger.lti.Units;
+
+import java.util.Arrays;
+import java.util.Locale;
+
+/**
+ * What an auto-tune must achieve, with units in every name. Robustness limits apply to every loop the
+ * tuner closes (velocity loop, position loop, and the loop broken at the plant input), on every load
+ * case. Bandwidth: either a target velocity-loop crossover (the tuner then keeps it and picks the
+ * integral corner), or the highest crossover the limits allow, up to an optional ceiling.
+ *
+ * <p>Defaults (common practice for servo axes): phase margin ≥ 45°, gain margin ≥ 8 dB, Ms ≤ 1.8
+ * (5.1 dB), velocity-integral corner between 1/10 and 1/2 of the velocity crossover, position gain at
+ * most 1/3 of the velocity crossover.
+ */
+public final class TuningSpec {
+    private final double minPhaseMarginDeg;
+    private final double minGainMarginDb;
+    private final double maxSensitivityPeak;
+    private final double velocityCrossoverHz;     // NaN: maximise
+    private final double maxVelocityCrossoverHz;  // +inf: none
+    private final double positionBandwidthHz;     // NaN: as high as allowed
+    private final double maxPositionToVelocityRatio;
+    private final double[] integralRatios;        // ω_cv/ω_i candidates
+    private final boolean allowLowPass;
+
+    private TuningSpec(Builder b) {
+        this.minPhaseMarginDeg = b.minPhaseMarginDeg;
+        this.minGainMarginDb = b.minGainMarginDb;
+        this.maxSensitivityPeak = b.maxSensitivityPeak;
+        this.velocityCrossoverHz = b.velocityCrossoverHz;
+        this.maxVelocityCrossoverHz = b.maxVelocityCrossoverHz;
+        this.positionBandwidthHz = b.positionBandwidthHz;
+        this.maxPositionToVelocityRatio = b.maxPositionToVelocityRatio;
+        this.integralRatios = b.integralRatios.clone();
+        this.allowLowPass = b.allowLowPass;
+    }
+
+    public static Builder builder() { return new Builder(); }
+
+    /** The defaults above. */
+    public static TuningSpec defaults() { return builder().build(); }
+
+    public double minPhaseMarginDeg() { return minPhaseMarginDeg; }
+
+    public double minGainMarginDb() { return minGainMarginDb; }
+
+    public double maxSensitivityPeak() { return maxSensitivityPeak; }
+
+    public boolean hasVelocityCrossoverTarget() { return !Double.isNaN(velocityCrossoverHz); }
+
+    public double velocityCrossoverHz() { return velocityCrossoverHz; }
+
+    public double maxVelocityCrossoverHz() { return maxVelocityCrossoverHz; }
+
+    public boolean hasPositionBandwidthTarget() { return !Double.isNaN(positionBandwidthHz); }
+
+    public double positionBandwidthHz() { return positionBandwidthHz; }
+
+    public double maxPositionToVelocityRatio() { return maxPositionToVelocityRatio; }
+
+    public double[] integralRatios() { return integralRatios.clone(); }
+
+    public boolean allowLowPass() { return allowLowPass; }
+
+    /** Whether the figures meet every robustness limit (stability included). */
+    boolean meets(LoopFigures f) {
+        return f.stable() && f.phaseMarginDeg() >= minPhaseMarginDeg && f.gainMarginDb() >= minGainMarginDb
+                && f.sensitivityPeak() <= maxSensitivityPeak;
+    }
+
+    /**
+     * How far the figures miss the limits, as the worst relative shortfall (0 when all are met):
+     * used to rank candidates when no candidate meets the spec.
+     */
+    double shortfall(LoopFigures f) {
+        if (!f.stable()) return 10;
+        double a = Math.max(0, (minPhaseMarginDeg - f.phaseMarginDeg()) / minPhaseMarginDeg);
+        double b = Math.max(0, (minGainMarginDb - f.gainMarginDb()) / minGainMarginDb);
+        double c = Math.max(0, (f.sensitivityPeak() - maxSensitivityPeak) / maxSensitivityPeak);
+        return Math.max(a, Math.max(b, c));
+    }
+
+    /** The limit that binds (smallest headroom) or fails, named for the record. */
+    String bindingConstraint(LoopFigures f) {
+        if (!f.stable()) return "closed-loop stability";
+        double a = (f.phaseMarginDeg() - minPhaseMarginDeg) / minPhaseMarginDeg;
+        double b = (f.gainMarginDb() - minGainMarginDb) / minGainMarginDb;
+        double c = (maxSensitivityPeak - f.sensitivityPeak()) / maxSensitivityPeak;
+        if (a <= b && a <= c) return "phase margin ≥ " + Units.g4(minPhaseMarginDeg) + " deg";
+        if (b <= c) return "gain margin ≥ " + Units.g4(minGainMarginDb) + " dB";
+        return "sensitivity peak Ms ≤ " + Units.g4(maxSensitivityPeak);
+    }
+
+    @Override public String toString() {
+        StringBuilder sb = new StringBuilder("TuningSpec[");
+        sb.append("PM ≥ ").append(Units.g4(minPhaseMarginDeg)).append(" deg, GM ≥ ").append(Units.g4(minGainMarginDb))
+                .append(" dB, Ms ≤ ").append(Units.g4(maxSensitivityPeak));
+        if (hasVelocityCrossoverTarget()) sb.append(", velocity crossover ").append(Units.formatHz(velocityCrossoverHz));
+        else if (Double.isFinite(maxVelocityCrossoverHz)) sb.append(", velocity crossover ≤ ").append(Units.formatHz(maxVelocityCrossoverHz));
+        else sb.append(", velocity crossover as high as allowed");
+        if (hasPositionBandwidthTarget()) sb.append(", position bandwidth ").append(Units.formatHz(positionBandwidthHz));
+        sb.append(", Kp ≤ ω_cv/").append(Units.g4(maxPositionToVelocityRatio));
+        sb.append(", ω_cv/ω_i in ").append(Arrays.toString(integralRatios).replace(".0", ""));
+        if (allowLowPass) sb.append(", low-pass placement allowed");
+        return sb.append(']').toString();
+    }
+
+    /** Builder with validated, unit-bearing setters. */
+    public static final class Builder {
+        private double minPhaseMarginDeg = 45;
+        private double minGainMarginDb = 8;
+        private double maxSensitivityPeak = 1.8;
+        private double velocityCrossoverHz = Double.NaN;
+        private double maxVelocityCrossoverHz = Double.POSITIVE_INFINITY;
+        private double positionBandwidthHz = Double.NaN;
+        private double maxPositionToVelocityRatio = 3;
+        private double[] integralRatios = {2, 2.5, 3, 4, 5, 6, 8, 10};
+        private boolean allowLowPass = false;
+
+        private Builder() {}
+
+        public Builder minPhaseMarginDeg(double deg) {
+            if (!(deg > 0 && deg < 90)) throw new IllegalArgumentException("minimum phase margin must lie in (0, 90) deg, got " + deg);
+            minPhaseMarginDeg = deg;
+            return this;
+        }
+
+        public Builder minGainMarginDb(double db) {
+            if (!(db > 0 && db < 40)) throw new IllegalArgumentException("minimum gain margin must lie in (0, 40) dB, got " + db);
+            minGainMarginDb = db;
+            return this;
+        }
+
+        /** Upper limit on Ms = max|S| (a ratio greater than 1, e.g. 1.6; use maxSensitivityPeakDb for dB). */
+        public Builder maxSensitivityPeak(double ms) {
+            if (!(ms > 1 && ms < 10)) throw new IllegalArgumentException("maximum sensitivity peak Ms must lie in (1, 10), got " + ms
+                    + " (it is a ratio; for dB use maxSensitivityPeakDb)");
+            maxSensitivityPeak = ms;
+            return this;
+        }
+
+        public Builder maxSensitivityPeakDb(double db) { return maxSensitivityPeak(Units.dbToRatio(db)); }
+
+        /** Put the velocity-loop crossover at this frequency (worst load case) and choose the rest. */
+        public Builder velocityCrossoverHz(double hz) {
+            if (!(hz > 0) || Double.isInfinite(hz)) throw new IllegalArgumentException("velocity crossover must be a positive frequency in Hz, got " + hz);
+            velocityCrossoverHz = hz;
+            return this;
+        }
+
+        public Builder maxVelocityCrossoverHz(double hz) {
+            if (!(hz > 0)) throw new IllegalArgumentException("velocity crossover ceiling must be positive, got " + hz);
+            maxVelocityCrossoverHz = hz;
+            return this;
+        }
+
+        /** Aim the position loop at this bandwidth (Kp ≈ 2π·f), as far as the limits allow. */
+        public Builder positionBandwidthHz(double hz) {
+            if (!(hz > 0) || Double.isInfinite(hz)) throw new IllegalArgumentException("position bandwidth must be a positive frequency in Hz, got " + hz);
+            positionBandwidthHz = hz;
+            return this;
+        }
+
+        /** Kp ≤ ω_cv / ratio (ratio ≥ 1; common practice 3 to 5). */
+        public Builder maxPositionToVelocityRatio(double ratio) {
+            if (!(ratio >= 1)) throw new IllegalArgumentException("velocity-to-position crossover ratio must be at least 1, got " + ratio);
+            maxPositionToVelocityRatio = ratio;
+            return this;
+        }
+
+        /** Candidate ratios ω_cv/ω_i (each > 1); include a large one for little integral action. */
+        public Builder integralRatios(double... ratios) {
+            if (ratios.length == 0) throw new IllegalArgumentException("give at least one integral ratio");
+            for (double r : ratios) if (!(r > 1)) throw new IllegalArgumentException(String.format(Locale.ROOT, "integral ratio ω_cv/ω_i must exceed 1, got %s", r));
+            integralRatios = ratios.clone();
+            Arrays.sort(integralRatios);
+            return this;
+        }
+
+        /** Let the tuner add a second-order low-pass (ζ = 0.7) on the current command, placed at a multiple of the crossover. */
+        public Builder allowLowPass(boolean allow) {
+            allowLowPass = allow;
+            return this;
+        }
+
+        public TuningSpec build() {
+            if (hasTarget() && velocityCrossoverHz > maxVelocityCrossoverHz) {
+                throw new IllegalArgumentException("velocity crossover target " + Units.formatHz(velocityCrossoverHz) + " lies above its ceiling "
+                        + Units.formatHz(maxVelocityCrossoverHz));
+            }
+            return new TuningSpec(this);
+        }
+
+        private boolean hasTarget() { return !Double.isNaN(velocityCrossoverHz); }
+    }
+}
