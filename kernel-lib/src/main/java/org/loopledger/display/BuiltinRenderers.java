@@ -2,7 +2,7 @@ package org.loopledger.display;
 
 /**
  * Registers the renderers for the general-purpose libraries we ship (XChart, Tablesaw), our own
- * figures, and the library's domain values (transfer functions, FRFs, margins), which are rendered
+ * figures, and the library's domain values (transfer functions, FRFs, margins, spec reports), which are rendered
  * from here so that the domain packages never depend on display.
  */
 final class BuiltinRenderers {
@@ -15,5 +15,6 @@ final class BuiltinRenderers {
         r.register(org.loopledger.lti.TransferFunction.class, TransferFunctionRenderer::render);
         r.register(org.loopledger.frf.Frf.class, FrfRenderer::render);
         r.register(org.loopledger.analysis.Margins.class, MarginsRenderer::render);
+        r.register(org.loopledger.analysis.SpecReport.class, SpecReportRenderer::render);
     }
 }
