@@ -142,7 +142,8 @@ class CliEndToEndTest {
         assertEquals(sha256sum(dir.resolve("gains.csv")), ds.get("sha256").getAsString());
         String html = Files.readString(record);
         assertTrue(html.contains(sha256sum(dir.resolve("gains.csv"))), "the record states the dataset digest");
-        assertTrue(html.contains("2 spec check(s)") || html.contains("1 spec check(s)"), "the record's closing summary lists the spec check");
+        // PM 67.6 deg >= 45 and GM 12.04 dB >= 6 of 2/(s+1)^3 (by hand, see MarginsRendererTest): the summary lists one check, met.
+        assertTrue(html.contains("1 spec check(s), all met."), "the record's closing summary lists the spec check");
     }
 
     static String sha256sum(Path f) throws Exception {
@@ -243,8 +244,10 @@ class CliEndToEndTest {
         Files.writeString(nb, notebookJson("In place", "java", 4, "1 + 1"));
         Result r = loopledger("run", nb.toString(), "--in-place");
         assertEquals(0, r.exit(), r.all());
-        String after = Files.readString(nb);
-        assertTrue(after.contains("\"execution_count\": 1") && after.contains("\"text/plain\": [\n       \"2\"") || after.contains("\"2\""), after);
+        JsonObject code = JsonParser.parseString(Files.readString(nb)).getAsJsonObject().getAsJsonArray("cells").get(1).getAsJsonObject();
+        assertEquals(1, code.get("execution_count").getAsInt());
+        JsonObject result = code.getAsJsonArray("outputs").get(0).getAsJsonObject();
+        assertEquals("2", String.join("", new com.google.gson.Gson().fromJson(result.getAsJsonObject("data").get("text/plain"), String[].class)));
         assertFalse(Files.exists(dir.resolve("inplace.out.ipynb")), "no sibling written with --in-place");
         Result both = loopledger("run", nb.toString(), "--in-place", "-o", dir.resolve("x.ipynb").toString());
         assertEquals(2, both.exit(), both.all());
