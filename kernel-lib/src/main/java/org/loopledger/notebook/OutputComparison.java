@@ -98,10 +98,38 @@ public final class OutputComparison {
         for (String mime : a.keySet()) {
             if (mime.equals("image/png") && (plotData || a.containsKey("image/svg+xml"))) continue; // pixels are not data
             if (mime.equals("image/svg+xml") && plotData) continue;
-            String d = text(mime, a.get(mime), b.get(mime));
+            boolean json = mime.equals("application/json") || mime.endsWith("+json");
+            String d = json ? text(mime, canonicalJson(a.get(mime)), canonicalJson(b.get(mime))) : text(mime, a.get(mime), b.get(mime));
             if (d != null) return d;
         }
         return null;
+    }
+
+    /**
+     * JSON with every object's keys sorted, compact, numbers as written: a stored notebook keeps JSON
+     * outputs as objects with sorted keys while a fresh run has them in insertion order, and the order
+     * of keys carries no meaning (RFC 8259, section 4). Text that is not JSON is compared as it is.
+     */
+    static String canonicalJson(String s) {
+        try {
+            return sorted(com.google.gson.JsonParser.parseString(s)).toString();
+        } catch (com.google.gson.JsonParseException e) {
+            return s;
+        }
+    }
+
+    private static com.google.gson.JsonElement sorted(com.google.gson.JsonElement e) {
+        if (e.isJsonObject()) {
+            com.google.gson.JsonObject o = new com.google.gson.JsonObject();
+            new java.util.TreeMap<>(e.getAsJsonObject().asMap()).forEach((k, v) -> o.add(k, sorted(v)));
+            return o;
+        }
+        if (e.isJsonArray()) {
+            com.google.gson.JsonArray a = new com.google.gson.JsonArray();
+            for (com.google.gson.JsonElement x : e.getAsJsonArray()) a.add(sorted(x));
+            return a;
+        }
+        return e;
     }
 
     /** null when equal under the tolerance, else a description of the first difference. */
