@@ -1,5 +1,6 @@
 package org.loopledger.ident.log;
 
+import org.loopledger.provenance.Provenance;
 import tech.tablesaw.api.ColumnType;
 import tech.tablesaw.api.Table;
 import tech.tablesaw.columns.Column;
@@ -28,8 +29,11 @@ import java.util.stream.Collectors;
 public final class DriveLogReader {
     private DriveLogReader() {}
 
+    /** From a CSV file; the file is recorded (path, size, SHA-256) for the tuning record, see {@link Provenance}. */
     public static DriveLog read(Path file, LogCheckOptions o) throws IOException {
-        return read(file.toString(), Files.newBufferedReader(file, StandardCharsets.UTF_8), o);
+        DriveLog log = read(file.toString(), Files.newBufferedReader(file, StandardCharsets.UTF_8), o);
+        Provenance.recordDataset(file);
+        return log;
     }
 
     /** From CSV text (e.g. a notebook cell); {@code source} names it in messages. */
