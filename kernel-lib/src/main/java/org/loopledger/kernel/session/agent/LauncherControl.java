@@ -2,16 +2,62 @@ package org.loopledger.kernel.session.agent;
 
 import jdk.jshell.execution.StreamingExecutionControl;
 
+import java.io.IOException;
 import java.io.ObjectInput;
 import java.io.ObjectOutput;
 
-/** JShell's streaming control, with stop over the side channel and close that ends the agent JVM. */
+/**
+ * JShell's streaming control, with stop over the side channel, close that ends the agent JVM, and
+ * extension commands written here.
+ *
+ * <p>Why {@link #extensionCommand} is ours: OpenJDK 17.0.21's {@code StreamingExecutionControl.extensionCommand}
+ * throws {@code NotImplementedException} without sending anything (earlier 17 updates sent the command), while
+ * the agent side ({@code ExecutionControlForwarder}) still dispatches unknown commands to
+ * {@link AgentControl#extensionCommand}. So the command is written in the forwarder's wire format
+ * (jdk.jshell.execution.RemoteCodes, read with {@code javap -constants}): the command prefix, the command name
+ * (UTF), the argument (object); the reply is a status int, then the result object on success or a UTF message.
+ * Only {@code NotImplementedException} is declared (17.0.21's signature, narrower than earlier updates', so this
+ * compiles on both); a failing or unreachable agent is an {@code IllegalStateException}, which
+ * {@code CellSession} treats as a dead agent.
+ */
 final class LauncherControl extends StreamingExecutionControl {
+    private static final int COMMAND_PREFIX = 0xC03DC03D;
+    private static final int RESULT_SUCCESS = 100;
+    private static final int RESULT_TERMINATED = 101;
+    private static final int RESULT_NOT_IMPLEMENTED = 102;
+    private static final int RESULT_INTERNAL_PROBLEM = 103;
+
     private final AgentConnection connection;
+    private final ObjectOutput out;
+    private final ObjectInput in;
 
     LauncherControl(ObjectOutput out, ObjectInput in, AgentConnection connection) {
         super(out, in);
+        this.out = out;
+        this.in = in;
         this.connection = connection;
+    }
+
+    @Override
+    public Object extensionCommand(String command, Object arg) throws NotImplementedException {
+        try {
+            synchronized (this) {
+                out.writeInt(COMMAND_PREFIX);
+                out.writeUTF(command);
+                out.writeObject(arg);
+                out.flush();
+                int status = in.readInt();
+                switch (status) {
+                    case RESULT_SUCCESS: return in.readObject();
+                    case RESULT_NOT_IMPLEMENTED: throw new NotImplementedException(in.readUTF());
+                    case RESULT_INTERNAL_PROBLEM: throw new IllegalStateException("the agent failed on " + command + ": " + in.readUTF());
+                    case RESULT_TERMINATED: throw new IllegalStateException("the agent ended during " + command + ": " + in.readUTF());
+                    default: throw new IllegalStateException("the agent answered extension command " + command + " with status " + status);
+                }
+            }
+        } catch (IOException | ClassNotFoundException e) {
+            throw new IllegalStateException("agent JVM unreachable during " + command + ": " + e, e);
+        }
     }
 
     @Override
