@@ -1,22 +1,50 @@
 package org.loopledger.cli;
 
 import picocli.CommandLine.Command;
+import picocli.CommandLine.Option;
 import picocli.CommandLine.Parameters;
 
+import java.nio.file.Path;
 import java.util.concurrent.Callable;
 
-/** {@code loopledger bench kernel}: kernel latency against ipykernel (see {@link org.loopledger.kernel.bench.KernelBench}). */
-@Command(name = "bench", description = "Benchmarks: 'kernel' compares start-up and cell latency with ipykernel.")
+/**
+ * {@code loopledger bench kernel}: kernel latency against ipykernel (see {@link org.loopledger.kernel.bench.KernelBench});
+ * {@code loopledger bench runner NOTEBOOK [--rounds N]}: run and verify against nbconvert (see {@link RunnerBench});
+ * {@code loopledger bench tune}: auto-tune speed against the general analysis path;
+ * {@code loopledger bench spectral}: H1 + coherence against SciPy.
+ */
+@Command(name = "bench", description = {"Benchmarks, each against a reference measured in the same run:",
+        "'kernel' start-up and cell latency against ipykernel; 'runner NOTEBOOK' run and verify against jupyter nbconvert --execute;",
+        "'tune' auto-tune against screening through the general analysis path; 'spectral' H1 + coherence against SciPy."})
 final class BenchCommand implements Callable<Integer> {
-    @Parameters(index = "0", paramLabel = "WHAT", description = "kernel")
+    @Parameters(index = "0", paramLabel = "WHAT", description = "kernel | runner | tune | spectral")
     String what;
+
+    @Parameters(index = "1", arity = "0..1", paramLabel = "NOTEBOOK", description = "the notebook for 'runner'")
+    Path notebook;
+
+    @Option(names = "--rounds", paramLabel = "N", defaultValue = "3", description = "rounds for 'runner' (default ${DEFAULT-VALUE})")
+    int rounds;
 
     @Override
     public Integer call() throws Exception {
-        if (!"kernel".equals(what)) {
-            System.err.println("unknown benchmark '" + what + "'; available: kernel");
-            return 2;
+        switch (what) {
+            case "kernel":
+                return org.loopledger.kernel.bench.KernelBench.run(System.out);
+            case "runner":
+                if (notebook == null) {
+                    System.err.println("bench runner needs a notebook: ./loopledger bench runner NOTEBOOK.ipynb [--rounds N]");
+                    return 2;
+                }
+                return RunnerBench.run(notebook, rounds, System.out);
+            case "tune":
+                return org.loopledger.tune.bench.TuneBench.run(System.out);
+            case "spectral":
+                org.loopledger.ident.bench.SpectralBench.main(new String[0]);
+                return 0;
+            default:
+                System.err.println("unknown benchmark '" + what + "'; available: kernel, runner, tune, spectral");
+                return 2;
         }
-        return org.loopledger.kernel.bench.KernelBench.run(System.out);
     }
 }

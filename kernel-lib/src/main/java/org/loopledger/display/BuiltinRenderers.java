@@ -2,7 +2,7 @@ package org.loopledger.display;
 
 /**
  * Registers the renderers for the general-purpose libraries we ship (XChart, Tablesaw), our own
- * figures, and the library's domain values (transfer functions, FRFs, margins), which are rendered
+ * figures, and the library's domain values (transfer functions, FRFs, margins, spec reports, filter coefficients, fits, response figures, tuning results), which are rendered
  * from here so that the domain packages never depend on display.
  */
 final class BuiltinRenderers {
@@ -15,5 +15,10 @@ final class BuiltinRenderers {
         r.register(org.loopledger.lti.TransferFunction.class, TransferFunctionRenderer::render);
         r.register(org.loopledger.frf.Frf.class, FrfRenderer::render);
         r.register(org.loopledger.analysis.Margins.class, MarginsRenderer::render);
+        r.register(org.loopledger.analysis.SpecReport.class, SpecReportRenderer::render);
+        r.register(org.loopledger.control.CoefficientTable.class, ResultRenderers::coefficients);
+        r.register(org.loopledger.ident.fit.FitResult.class, ResultRenderers::fit);
+        r.register(org.loopledger.sim.ResponseMetrics.class, ResultRenderers::response);
+        r.register(org.loopledger.tune.TuningResult.class, ResultRenderers::tuning);
     }
 }

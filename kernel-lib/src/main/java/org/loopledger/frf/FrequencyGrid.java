@@ -2,7 +2,11 @@ package org.loopledger.frf;
 
 import org.loopledger.lti.Units;
 
-/** Logarithmically spaced frequency grids, returned in rad/s. */
+/**
+ * Logarithmically spaced frequency grids. Mind the units: {@link #logRadPerS} and {@link #logHz}
+ * return <b>rad/s</b> (what {@code TransferFunction.response} and {@code Frf} take); only
+ * {@link #logSpacedHz} returns Hz (for labels, tables and Hz-based APIs).
+ */
 public final class FrequencyGrid {
     private FrequencyGrid() {}
 
@@ -20,8 +24,30 @@ public final class FrequencyGrid {
         return w;
     }
 
-    /** {@code n} log-spaced points from {@code loHz} to {@code hiHz}, returned in rad/s. */
+    /**
+     * {@code n} log-spaced points from {@code loHz} to {@code hiHz}, <b>returned in rad/s, not Hz</b>:
+     * the limits are given in Hz but every value is 2π·f, ready for {@code TransferFunction.response}
+     * and {@code Frf.ofModel}. {@code logHz(1, 1000, n)[0]} is 6.283, not 1. For the same grid in Hz
+     * use {@link #logSpacedHz}.
+     */
     public static double[] logHz(double loHz, double hiHz, int n) {
         return logRadPerS(Units.hzToRadPerS(loHz), Units.hzToRadPerS(hiHz), n);
+    }
+
+    /**
+     * {@code n} points from {@code loHz} to {@code hiHz} inclusive, equally spaced in log f, <b>returned
+     * in Hz</b> (the same grid as {@link #logHz}, divided by 2π; end points exact).
+     */
+    public static double[] logSpacedHz(double loHz, double hiHz, int n) {
+        if (!(loHz > 0) || !(hiHz > loHz) || Double.isInfinite(hiHz)) {
+            throw new IllegalArgumentException("a log grid needs 0 < low < high < inf, got " + loHz + " .. " + hiHz + " Hz");
+        }
+        if (n < 2) throw new IllegalArgumentException("a log grid needs at least 2 points, got " + n);
+        double a = Math.log10(loHz), b = Math.log10(hiHz);
+        double[] f = new double[n];
+        for (int i = 0; i < n; i++) f[i] = Math.pow(10, a + (b - a) * i / (n - 1));
+        f[0] = loHz;
+        f[n - 1] = hiHz;
+        return f;
     }
 }

@@ -30,44 +30,100 @@ import java.util.List;
 public final class Discretization {
     private Discretization() {}
 
-    /** Zero-order-hold equivalent at sample time {@code sampleTimeS}. */
+    /**
+     * Zero-order-hold equivalent at sample time {@code sampleTimeS}, in coefficient form.
+     *
+     * <p>Route: the balanced series-section realisation ({@link StateSpace#seriesSections},
+     * {@link StateSpace#balanced}) is discretised by {@link #zohStateSpace}; the denominator is
+     * ∏(z - e<sup>p<sub>i</sub>T</sup>) from the continuous poles; the numerator N(z) = D(z)·G<sub>d</sub>(z)
+     * is evaluated from the state-space formula at 2(n + 1) points on the unit circle (between the
+     * poles) and its coefficients recovered by an inverse DFT, a unitary, well-conditioned step.
+     *
+     * <p>Limitation, inherent to coefficient form: for high orders at fast sampling (poles and
+     * zeros clustered near z = 1) the coefficients themselves, even when correctly rounded, cannot
+     * give the response near z = 1 to full accuracy; the relative error of the response is about
+     * 1e-16·(Σ|b<sub>i</sub>|/|N(z)| + Σ|a<sub>i</sub>|/|D(z)|), e.g. 1e-4 at 1 Hz for an
+     * eighth-order servo loop at 16 kHz. Where that matters, evaluate {@link #zohStateSpace} instead.
+     */
     public static TransferFunction zoh(TransferFunction g, double sampleTimeS) {
         TimeBase tb = requireContinuous(g, sampleTimeS);
         g.requireProper("zero-order-hold discretisation");
         int n = g.denominator().degree();
         if (n == 0) return TransferFunction.gain(g.highFrequencyGain(), tb).withDelay(g.delayS());
-        StateSpace ss = StateSpace.controllableCanonical(g);
+        if (g.numerator().isZero()) return TransferFunction.gain(0, tb).withDelay(g.delayS());
+        StateSpace sd = zohOfRational(g.withoutDelay(), sampleTimeS);
+        List<Complex> zPoles = new ArrayList<>();
+        for (Complex p : g.poles()) zPoles.add(p.multiply(sampleTimeS).exp());
+        Complex[] zp = conjugateSymmetric(zPoles);
+        Polynomial den = Polynomial.ofRoots(zp);
+        // Sample points e^{jθ_k}, θ_k = (2πk + φ)/M, with the rotation φ that keeps them farthest from the poles.
+        int m = 2 * (n + 1);
+        double phi = 0, bestGap = -1;
+        for (int t = 1; t <= 7; t++) {
+            double cand = Math.PI * t / 4.0;
+            double gap = Double.POSITIVE_INFINITY;
+            for (int k = 0; k < m; k++) {
+                double th = (2 * Math.PI * k + cand) / m;
+                for (Complex p : zp) gap = Math.min(gap, Math.hypot(Math.cos(th) - p.getReal(), Math.sin(th) - p.getImaginary()));
+            }
+            if (gap > bestGap) { bestGap = gap; phi = cand; }
+        }
+        StateSpace.Resolvent r = new StateSpace.Resolvent(sd);
+        double[] nr = new double[m], ni = new double[m], g1 = new double[2], d1 = new double[2];
+        for (int k = 0; k < m; k++) {
+            double th = (2 * Math.PI * k + phi) / m, x = Math.cos(th), y = Math.sin(th);
+            if (!r.evaluate(x, y, g1)) throw new IllegalStateException("zoh: sample point hit a pole of " + g);
+            den.evaluate(x, y, d1);
+            nr[k] = g1[0] * d1[0] - g1[1] * d1[1];
+            ni[k] = g1[0] * d1[1] + g1[1] * d1[0];
+        }
+        double[] numD = new double[n + 1];            // descending: numD[n - j] = c_j
+        for (int j = 0; j <= n; j++) {
+            double s = 0;
+            for (int k = 0; k < m; k++) {
+                double th = -j * (2 * Math.PI * k + phi) / m;
+                s += nr[k] * Math.cos(th) - ni[k] * Math.sin(th);
+            }
+            numD[n - j] = s / m;
+        }
+        numD[0] = sd.d();                              // exactly: N(z) = D·den(z) + C adj(zI - A_d) B_d, and adj has degree n - 1
+        return TransferFunction.of(Polynomial.ofDescending(numD), den, tb).withDelay(g.delayS());
+    }
+
+    /**
+     * Zero-order-hold equivalent as a sampled state-space model (A<sub>d</sub>, B<sub>d</sub>, C, D),
+     * with no polynomial anywhere: the continuous system is realised as balanced series sections
+     * ({@link StateSpace#seriesSections}, {@link StateSpace#balanced}) and [A<sub>d</sub>, B<sub>d</sub>]
+     * taken from one matrix exponential of [[A, B], [0, 0]]·T (Franklin, Powell and Workman, Digital
+     * Control of Dynamic Systems, 3rd ed., §4.3.3). Its {@link StateSpace#response(double[], double[], double[])}
+     * is the accurate frequency response of the ZOH equivalent at any order and sample rate (DESIGN:
+     * high-order products are evaluated without expanding them). A system with a pure delay is refused,
+     * since a state-space model carries none: discretise {@code g.withoutDelay()} and multiply the
+     * response by e<sup>-jωτ</sup>.
+     */
+    public static StateSpace zohStateSpace(TransferFunction g, double sampleTimeS) {
+        requireContinuous(g, sampleTimeS);
+        g.requireProper("zero-order-hold discretisation");
+        if (g.hasDelay()) {
+            throw new IllegalArgumentException("zohStateSpace: " + g + " has a pure delay of " + Units.g4(g.delayS())
+                    + " s, which a state-space model cannot carry; discretise g.withoutDelay() and multiply its response by e^(-jωτ)");
+        }
+        if (g.denominator().degree() == 0) {
+            throw new IllegalArgumentException("zohStateSpace: " + g + " is a static gain and has no states; its ZOH equivalent is the same gain");
+        }
+        return zohOfRational(g, sampleTimeS);
+    }
+
+    private static StateSpace zohOfRational(TransferFunction g, double sampleTimeS) {
+        StateSpace ss = StateSpace.seriesSections(g).balanced();
+        int n = ss.order();
         RealMatrix m = new Array2DRowRealMatrix(n + 1, n + 1);
         m.setSubMatrix(ss.a(), 0, 0);
         double[] b = ss.b();
         for (int i = 0; i < n; i++) m.setEntry(i, n, b[i]);
         RealMatrix phi = MatrixExponential.expm(m.scalarMultiply(sampleTimeS));
-        RealMatrix ad = phi.getSubMatrix(0, n - 1, 0, n - 1);
-        RealMatrix bd = phi.getSubMatrix(0, n - 1, n, n);
-        double[] c = ss.c();
-        List<Complex> zPoles = new ArrayList<>();
-        for (Complex p : g.poles()) zPoles.add(p.multiply(sampleTimeS).exp());
-        Polynomial den = Polynomial.ofRoots(conjugateSymmetric(zPoles));
-        double[] a = den.coefficientsDescending();
-        // Markov parameters h_0 = D, h_k = C A_d^{k-1} B_d, and N(z) = D(z)·G(z) truncated:
-        // b_k = Σ_{i=0..k} a_i h_{k-i}. Linear in the data, so a numerator much smaller than the
-        // denominator (fast sampling) keeps its own relative accuracy.
-        double[] h = new double[n + 1];
-        h[0] = ss.d();
-        RealMatrix x = bd;
-        for (int k = 1; k <= n; k++) {
-            double s = 0;
-            for (int i = 0; i < n; i++) s += c[i] * x.getEntry(i, 0);
-            h[k] = s;
-            if (k < n) x = ad.multiply(x);
-        }
-        double[] numD = new double[n + 1];
-        for (int k = 0; k <= n; k++) {
-            double s = 0;
-            for (int i = 0; i <= k; i++) s += a[i] * h[k - i];
-            numD[k] = s;
-        }
-        return TransferFunction.of(Polynomial.ofDescending(numD), den, tb).withDelay(g.delayS());
+        return StateSpace.of(phi.getSubMatrix(0, n - 1, 0, n - 1).getData(), phi.getColumnMatrix(n).getSubMatrix(0, n - 1, 0, 0).getColumn(0),
+                ss.c(), ss.d(), TimeBase.sampled(sampleTimeS));
     }
 
     /** Tustin (bilinear) equivalent without prewarping: c = 2/T. */

@@ -202,7 +202,7 @@ public final class Polynomial {
                 double[][] m = new double[n][n];
                 for (int j = 0; j < n; j++) m[0][j] = -a[j + 1] / a[0];
                 for (int i = 1; i < n; i++) m[i][i - 1] = 1.0;
-                balance(m);
+                Balancing.balanceInPlace(m);
                 EigenDecomposition ed = new EigenDecomposition(new Array2DRowRealMatrix(m, false));
                 double[] re = ed.getRealEigenvalues();
                 double[] im = ed.getImagEigenvalues();
@@ -223,36 +223,6 @@ public final class Polynomial {
         if (!Double.isFinite(z1.getReal()) || !Double.isFinite(z1.getImaginary())) return z;
         if (z.getImaginary() == 0) z1 = new Complex(z1.getReal(), 0);
         return p.evaluate(z1).abs() < f.abs() ? z1 : z;
-    }
-
-    /** Parlett–Reinsch balancing by powers of two, in place (similarity transform, eigenvalues unchanged). */
-    private static void balance(double[][] a) {
-        int n = a.length;
-        final double radix = 2.0;
-        boolean done = false;
-        for (int iter = 0; !done && iter < 100; iter++) {
-            done = true;
-            for (int i = 0; i < n; i++) {
-                double r = 0, col = 0;
-                for (int j = 0; j < n; j++) {
-                    if (j != i) {
-                        col += Math.abs(a[j][i]);
-                        r += Math.abs(a[i][j]);
-                    }
-                }
-                if (col == 0 || r == 0) continue;
-                double g = r / radix, f = 1.0, s = col + r;
-                while (col < g) { f *= radix; col *= radix * radix; }
-                g = r * radix;
-                while (col > g) { f /= radix; col /= radix * radix; }
-                if ((col + r) / f < 0.95 * s) {
-                    done = false;
-                    g = 1.0 / f;
-                    for (int j = 0; j < n; j++) a[i][j] *= g;
-                    for (int j = 0; j < n; j++) a[j][i] *= f;
-                }
-            }
-        }
     }
 
     @Override public boolean equals(Object o) { return o instanceof Polynomial p && Arrays.equals(c, p.c); }

@@ -1,8 +1,14 @@
 package org.loopledger.notebook;
 
+import com.google.gson.JsonArray;
+import com.google.gson.JsonElement;
+import com.google.gson.JsonObject;
+import com.google.gson.JsonParser;
+
 import java.util.ArrayList;
 import java.util.List;
 import java.util.Map;
+import java.util.TreeMap;
 import java.util.regex.Matcher;
 import java.util.regex.Pattern;
 
@@ -98,10 +104,40 @@ public final class OutputComparison {
         for (String mime : a.keySet()) {
             if (mime.equals("image/png") && (plotData || a.containsKey("image/svg+xml"))) continue; // pixels are not data
             if (mime.equals("image/svg+xml") && plotData) continue;
-            String d = text(mime, a.get(mime), b.get(mime));
+            boolean json = mime.equals("application/json") || mime.endsWith("+json");
+            String d = json ? text(mime, canonicalJson(a.get(mime)), canonicalJson(b.get(mime))) : text(mime, a.get(mime), b.get(mime));
             if (d != null) return d;
         }
         return null;
+    }
+
+    /**
+     * JSON text with object keys sorted at every level, so that the order in which a renderer wrote
+     * the keys (insertion order) and the order in which a notebook file stores them (sorted) compare
+     * equal. Text that is not JSON is returned unchanged.
+     */
+    static String canonicalJson(String text) {
+        try {
+            return sorted(JsonParser.parseString(text)).toString();
+        } catch (RuntimeException e) {
+            return text;
+        }
+    }
+
+    private static JsonElement sorted(JsonElement e) {
+        if (e.isJsonObject()) {
+            TreeMap<String, JsonElement> m = new TreeMap<>();
+            for (var en : e.getAsJsonObject().entrySet()) m.put(en.getKey(), sorted(en.getValue()));
+            JsonObject o = new JsonObject();
+            m.forEach(o::add);
+            return o;
+        }
+        if (e.isJsonArray()) {
+            JsonArray a = new JsonArray(e.getAsJsonArray().size());
+            for (JsonElement x : e.getAsJsonArray()) a.add(sorted(x));
+            return a;
+        }
+        return e;
     }
 
     /** null when equal under the tolerance, else a description of the first difference. */

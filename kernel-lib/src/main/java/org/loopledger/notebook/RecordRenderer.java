@@ -170,21 +170,8 @@ public final class RecordRenderer {
 
     static String stripAnsi(String s) { return s.replaceAll("\u001B\\[[;\\d]*[A-Za-z]", ""); }
 
-    /** HTML escaping of text content and attribute values. */
+    /** HTML escaping of text content and attribute values (null as empty). */
     static String esc(String s) {
-        if (s == null) return "";
-        StringBuilder sb = new StringBuilder(s.length() + 16);
-        for (int i = 0; i < s.length(); i++) {
-            char c = s.charAt(i);
-            switch (c) {
-                case '<' -> sb.append("&lt;");
-                case '>' -> sb.append("&gt;");
-                case '&' -> sb.append("&amp;");
-                case '"' -> sb.append("&quot;");
-                case '\'' -> sb.append("&#39;");
-                default -> sb.append(c);
-            }
-        }
-        return sb.toString();
+        return s == null ? "" : org.loopledger.display.HtmlEscape.escape(s);
     }
 }

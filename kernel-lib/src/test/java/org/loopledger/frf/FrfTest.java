@@ -82,6 +82,20 @@ class FrfTest {
         assertEquals(Units.hzToRadPerS(2000), got[56]);
     }
 
+    // Source: numpy.logspace(log10(lo Hz), log10(hi Hz), n), the same reference as above divided by 2π;
+    // logSpacedHz returns Hz, not rad/s (the trap logHz set for an engineer). 1e-13 relative: both are
+    // 10^x of the same exponents, off by a few ulps.
+    @Test
+    void logSpacedHzGridMatchesNumpyLogspaceInHz() {
+        double[] want = PythonOracle.doubles(numpy.get("logspace"));
+        double[] got = FrequencyGrid.logSpacedHz(0.5, 2000, 57);
+        for (int i = 0; i < want.length; i++) assertEquals(want[i] / (2 * Math.PI), got[i], 1e-13 * got[i], "point " + i);
+        assertEquals(0.5, got[0]);                      // end points exact, in Hz
+        assertEquals(2000, got[56]);
+        double[] rad = FrequencyGrid.logHz(0.5, 2000, 57);
+        for (int i = 0; i < got.length; i++) assertEquals(Units.hzToRadPerS(got[i]), rad[i], 1e-13 * rad[i], "logHz is the same grid in rad/s");
+    }
+
     // ---------------------------------------- interpolation ----------------------------------------
 
     /**

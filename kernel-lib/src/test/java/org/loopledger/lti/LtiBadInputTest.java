@@ -37,6 +37,17 @@ class LtiBadInputTest {
                 Arguments.of("matched of s² + 1 over s + 2 (not proper)", (Executable) () -> Discretization.matched(
                                 TransferFunction.continuous(new double[] {1, 0, 1}, new double[] {1, 2}), 0.01, 1.0),
                         List.of("matched", "proper")),
+                Arguments.of("zohStateSpace of a delayed system", (Executable) () -> Discretization.zohStateSpace(FIRST.withDelay(1e-3), 1e-3),
+                        List.of("delay", "withoutDelay")),
+                Arguments.of("zohStateSpace of a static gain", (Executable) () -> Discretization.zohStateSpace(TransferFunction.gain(2), 1e-3),
+                        List.of("static gain", "no states")),
+                Arguments.of("state-space response above Nyquist", (Executable) () -> Discretization.zohStateSpace(FIRST, 1e-3).response(4000.0),
+                        List.of("Nyquist", "500 Hz")),
+                Arguments.of("state-space response at a pole on the unit circle", (Executable) () ->
+                                Discretization.zohStateSpace(TransferFunction.continuous(new double[] {1}, new double[] {1, 0}), 1e-3).response(0.0),
+                        List.of("pole", "unit circle")),
+                Arguments.of("series sections of s (not proper)", (Executable) () -> StateSpace.seriesSections(TransferFunction.s()),
+                        List.of("state-space", "proper")),
                 Arguments.of("state space of s (not proper)", (Executable) () -> StateSpace.controllableCanonical(TransferFunction.s()),
                         List.of("state-space", "proper")),
                 Arguments.of("negative sample time", (Executable) () -> Discretization.zoh(FIRST, -1e-3),

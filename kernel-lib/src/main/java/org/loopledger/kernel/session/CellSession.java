@@ -36,6 +36,7 @@ public final class CellSession implements AutoCloseable {
     private final Map<String, Tracebacks.Origin> origins = new ConcurrentHashMap<>();
     private volatile OutputListener listener = OutputListener.IGNORE;
     private volatile boolean interruptRequested;
+    private volatile boolean executing;
     private JShell shell;
     private AgentConnection agent;
 
@@ -95,6 +96,7 @@ public final class CellSession implements AutoCloseable {
         CellResult.Collector collector = new CellResult.Collector(sink);
         listener = collector;
         interruptRequested = false;
+        executing = true;
         try {
             runSnippets(code, cellLabel, collector);
         } catch (IllegalStateException | jdk.jshell.spi.ExecutionControl.ExecutionControlException dead) {
@@ -106,6 +108,8 @@ public final class CellSession implements AutoCloseable {
                 collector.output(new CellOutput.Error("InternalError", "the kernel failed on this cell: " + e,
                         List.of("InternalError: " + e, "The session is still running; please report this cell.")));
             }
+        } finally {
+            executing = false;
         }
         return collector.result();
     }
@@ -193,9 +197,30 @@ public final class CellSession implements AutoCloseable {
         boot();
     }
 
-    /** Stops the running cell, even in a tight loop; harmless when none runs. Thread-safe. */
+    /**
+     * Stops the running cell, even in a tight loop; harmless when none runs. Thread-safe. An interrupt
+     * that arrives while the cell is still being compiled would find nothing to stop, so the stop is
+     * repeated every 50 ms until the cell has ended.
+     */
     public void interrupt() {
         interruptRequested = true;
+        stopOnce();
+        if (!executing) return;
+        Thread retry = new Thread(() -> {
+            while (executing && interruptRequested) {
+                try {
+                    Thread.sleep(50);
+                } catch (InterruptedException e) {
+                    return;
+                }
+                if (executing && interruptRequested) stopOnce();
+            }
+        }, "loopledger-interrupt");
+        retry.setDaemon(true);
+        retry.start();
+    }
+
+    private void stopOnce() {
         JShell s = shell;
         if (s != null) {
             try {

@@ -9,9 +9,12 @@ import java.util.List;
  */
 final class Preload {
     private static final List<String> LIBRARY_PACKAGES = List.of(
-            "org.loopledger.lti", "org.loopledger.frf", "org.loopledger.ident", "org.loopledger.control",
+            "org.loopledger.lti", "org.loopledger.frf", "org.loopledger.ident.excitation", "org.loopledger.ident.log",
+            "org.loopledger.ident.spectral", "org.loopledger.ident.fit", "org.loopledger.ident.demo", "org.loopledger.control",
             "org.loopledger.analysis", "org.loopledger.tune", "org.loopledger.sim", "org.loopledger.plot",
             "org.loopledger.display");
+    /** What the jshell tool imports by default, so cells read like ordinary Java. */
+    private static final List<String> JDK_PACKAGES = List.of("java.util", "java.nio.file", "java.io", "java.util.stream");
 
     private Preload() {}
 
@@ -20,6 +23,7 @@ final class Preload {
         for (String p : LIBRARY_PACKAGES) {
             if (loader.getResource(p.replace('.', '/') + "/") != null) result.add("import " + p + ".*;");
         }
+        for (String p : JDK_PACKAGES) result.add("import " + p + ".*;");
         result.add("import tech.tablesaw.api.*;");
         result.add("import org.knowm.xchart.*;");
         result.add("import static org.loopledger.display.Displays.*;");

@@ -1,0 +1,121 @@
+package org.loopledger.display;
+
+import org.loopledger.analysis.Margins;
+import org.loopledger.control.BiquadCoefficients;
+import org.loopledger.control.CoefficientTable;
+import org.loopledger.control.Filter;
+import org.loopledger.ident.fit.BandQuality;
+import org.loopledger.ident.fit.FitResult;
+import org.loopledger.ident.fit.ParameterEstimate;
+import org.loopledger.lti.Units;
+import org.loopledger.sim.Excitation;
+import org.loopledger.sim.ResponseMetrics;
+import org.loopledger.tune.LoadCaseFigures;
+import org.loopledger.tune.TuningResult;
+
+import java.util.Locale;
+import java.util.OptionalDouble;
+
+/**
+ * Tables for the result values of control, ident, sim and tune: drive filter coefficients, fitted
+ * parameters with their intervals, step-response figures and tuning results. HTML with the units in
+ * the column headers, every cell escaped; the plain text is each value's own {@code toString()}.
+ */
+public final class ResultRenderers {
+    private ResultRenderers() {}
+
+    /** Discrete filter coefficients, 15 significant digits (what a drive parameter needs), as the value prints them. */
+    public static MimeBundle coefficients(CoefficientTable t) {
+        HtmlTable h = HtmlTable.of("Filter coefficients at " + Units.formatHz(t.sampleRateHz())
+                + " (H(z) = (b0 + b1 z^-1 + b2 z^-2)/(1 + a1 z^-1 + a2 z^-2))", "#", "Filter", "b0", "b1", "b2", "a1", "a2");
+        int i = 1;
+        for (CoefficientTable.Row r : t.rows()) {
+            Filter f = r.filter();
+            BiquadCoefficients c = r.coefficients();
+            h.row(String.valueOf(i++), f.describe(), digits15(c.b0()), digits15(c.b1()), digits15(c.b2()), digits15(c.a1()), digits15(c.a2()));
+        }
+        if (h.isEmpty()) h.row(Figures.NONE, "no filters", "", "", "", "", "");
+        return html(t.toString(), h.toString());
+    }
+
+    private static String digits15(double v) { return String.format(Locale.ROOT, "%+.15e", v); }
+
+    /** Fitted parameters (value, unit, standard error, 95 % interval) and the fit quality per band. */
+    public static MimeBundle fit(FitResult r) {
+        StringBuilder h = new StringBuilder("<div class=\"loopledger-fit\">");
+        HtmlTable p = HtmlTable.of(String.format(Locale.ROOT, "Fitted model: %d points, %d iterations, reduced chi-square %s", r.points(), r.iterations(),
+                Figures.num(r.reducedChiSquare())), "Parameter", "Value", "Unit", "Standard error", "95 % low", "95 % high");
+        for (ParameterEstimate e : r.parameters()) {
+            p.row(e.name(), Figures.num(e.value()), e.unit(), Figures.num(e.standardError()), Figures.num(e.low95()), Figures.num(e.high95()));
+        }
+        p.appendTo(h);
+        if (!r.quality().isEmpty()) {
+            HtmlTable q = HtmlTable.of("Fit quality by band", "Band", "From (Hz)", "To (Hz)", "Points", "RMS magnitude error (dB)",
+                    "RMS phase error (deg)", "Normalised error (%)", "Reduced chi-square");
+            for (BandQuality b : r.quality()) {
+                q.row(b.label(), Figures.num(b.fLowHz()), Figures.num(b.fHighHz()), String.valueOf(b.points()), Figures.num(b.rmsMagnitudeErrorDb()),
+                        Figures.num(b.rmsPhaseErrorDeg()), Figures.num(b.normalisedErrorPercent()), Figures.num(b.reducedChiSquare()));
+            }
+            q.appendTo(h);
+        }
+        return html(r.toString(), h.append("</div>").toString());
+    }
+
+    /** Time-response figures of one simulated excitation. */
+    public static MimeBundle response(ResponseMetrics m) {
+        Excitation x = m.excitation();
+        String unit = x.errorUnit();
+        boolean step = x == Excitation.POSITION_STEP || x == Excitation.VELOCITY_STEP;
+        boolean disturbance = x == Excitation.TORQUE_DISTURBANCE_STEP;
+        HtmlTable t = HtmlTable.of("Response to a " + x.label(), "Figure", "Value", "Unit");
+        if (step) {
+            t.row("Rise time (10-90 %)", ms(m.riseTimeS()), "ms");
+            t.row("Overshoot", Figures.opt(m.overshootPct()), "%");
+        }
+        if (x != Excitation.POSITION_RAMP) {
+            t.row(disturbance ? "Recovery time (2 % of peak)" : "Settling time (2 % band)",
+                    m.settlingTimeS().isPresent() ? ms(m.settlingTimeS()) : "not settled within " + Figures.num(m.recordLengthS()) + " s", "ms");
+        }
+        t.row(disturbance ? "Peak deviation" : "Peak following error", Figures.num(m.peakFollowingError()), unit);
+        if (x == Excitation.POSITION_RAMP) t.row("Final following error", Figures.num(m.finalFollowingError()), unit);
+        t.row("Peak current", Figures.num(m.peakCurrent()), "plant-input units (e.g. A)");
+        return html(m.toString(), t.toString());
+    }
+
+    private static String ms(OptionalDouble s) { return s.isPresent() ? Figures.ms(s.getAsDouble()) : Figures.NONE; }
+
+    /** A tuning result: verdict and binding constraint, the gains, the figures per load case, the search trace. */
+    public static MimeBundle tuning(TuningResult r) {
+        StringBuilder h = new StringBuilder("<div class=\"loopledger-tuning\">");
+        h.append("<p><strong>").append(r.specMet() ? "Spec met" : "Spec NOT met").append("</strong>; binding constraint: ")
+                .append(HtmlEscape.escape(r.bindingConstraint())).append("</p>");
+        HtmlTable g = HtmlTable.of("Gains", "Parameter", "Value", "Unit");
+        g.row("Position gain Kp", Figures.num(r.piv().positionGainPerS()), "1/s");
+        g.row("Velocity gain Kv", Figures.num(r.piv().velocity().velocityGain()), "plant-input units per rad/s");
+        g.row("Velocity-integral corner", Figures.num(r.piv().velocity().integralCornerHz()), "Hz");
+        g.row("Filters", r.filters().isEmpty() ? "none" : r.filters().toString(), "");
+        g.appendTo(h);
+        HtmlTable c = HtmlTable.of("Achieved figures per load case (independent re-analysis)", "Load case", "Velocity crossover (Hz)",
+                "Velocity PM (deg)", "Velocity GM (dB)", "Velocity Ms", "Plant-input Ms", "Plant-input PM (deg)", "Position crossover (Hz)", "Position PM (deg)");
+        for (LoadCaseFigures f : r.cases()) {
+            c.row(f.label(), Figures.num(f.velocityCrossoverHz()), pm(f.velocityLoop()), gm(f.velocityLoop()), Figures.num(f.velocityLoop().sensitivityPeak().magnitude()),
+                    Figures.num(f.plantInput().sensitivityPeak().magnitude()), pm(f.plantInput()), Figures.num(f.positionCrossoverHz()), pm(f.positionLoop()));
+        }
+        c.appendTo(h);
+        if (!r.trace().isEmpty()) {
+            h.append("<ol class=\"loopledger-trace\">");
+            for (String s : r.trace()) h.append("<li>").append(HtmlEscape.escape(s)).append("</li>");
+            h.append("</ol>");
+        }
+        h.append("<p>").append(r.evaluations()).append(" loop evaluations</p>");
+        return html(r.toString(), h.append("</div>").toString());
+    }
+
+    private static String pm(Margins m) { return m.phaseMarginDeg().isPresent() ? Figures.fixed2(m.phaseMarginDeg().getAsDouble()) : "none in band"; }
+
+    private static String gm(Margins m) { return m.gainMarginDb().isPresent() ? Figures.fixed2(m.gainMarginDb().getAsDouble()) : "none in band"; }
+
+    private static MimeBundle html(String text, String html) {
+        return MimeBundle.builder(text).put(MimeBundle.TEXT_HTML, html).build();
+    }
+}
