@@ -8,20 +8,20 @@ import java.io.ObjectOutput;
 
 /**
  * JShell's streaming control, with stop over the side channel, close that ends the agent JVM, and
- * extension commands written on the wire ourselves.
+ * extension commands written here.
  *
- * <p>Why the last: JDK 17.0.21 hardened {@code StreamingExecutionControl}, whose
- * {@code extensionCommand} now throws "not implemented" instead of forwarding, while the agent side
- * ({@code ExecutionControlForwarder}) still dispatches unknown commands to
- * {@link AgentControl#extensionCommand}. The wire format is the forwarder's (JDK source
- * {@code jdk.jshell.execution.RemoteCodes}): the command prefix int, the command name (UTF), the
- * argument (object); the reply a status int and, on success, the result object. Only our own two
- * commands use it, and their results are Strings or null. Failures surface as the only checked
- * exception the overridden method may throw, {@code NotImplementedException}, with the reason.
+ * <p>Why {@link #extensionCommand} is ours: OpenJDK 17.0.21's {@code StreamingExecutionControl.extensionCommand}
+ * throws {@code NotImplementedException} without sending anything (earlier 17 updates sent the command), while
+ * the agent side ({@code ExecutionControlForwarder}) still dispatches unknown commands to
+ * {@link AgentControl#extensionCommand}. So the command is written in the forwarder's wire format
+ * (jdk.jshell.execution.RemoteCodes, read with {@code javap -constants}): the command prefix, the command name
+ * (UTF), the argument (object); the reply is a status int, then the result object on success or a UTF message.
+ * Only {@code NotImplementedException} is declared (17.0.21's signature, narrower than earlier updates', so this
+ * compiles on both); a failing or unreachable agent is an {@code IllegalStateException}, which
+ * {@code CellSession} treats as a dead agent.
  */
 final class LauncherControl extends StreamingExecutionControl {
-    /** {@code RemoteCodes.COMMAND_PREFIX}. */
-    private static final int COMMAND_PREFIX = -1069694915;
+    private static final int COMMAND_PREFIX = 0xC03DC03D;
     private static final int RESULT_SUCCESS = 100;
     private static final int RESULT_TERMINATED = 101;
     private static final int RESULT_NOT_IMPLEMENTED = 102;
@@ -39,34 +39,30 @@ final class LauncherControl extends StreamingExecutionControl {
     }
 
     @Override
-    public void stop() {
-        connection.stopRunning();
-    }
-
-    @Override
     public Object extensionCommand(String command, Object arg) throws NotImplementedException {
-        synchronized (this) {
-            try {
+        try {
+            synchronized (this) {
                 out.writeInt(COMMAND_PREFIX);
                 out.writeUTF(command);
                 out.writeObject(arg);
                 out.flush();
                 int status = in.readInt();
                 switch (status) {
-                    case RESULT_SUCCESS:
-                        return in.readObject();
-                    case RESULT_TERMINATED:
-                        throw new NotImplementedException(command + ": the agent ended: " + in.readUTF());
-                    case RESULT_NOT_IMPLEMENTED:
-                    case RESULT_INTERNAL_PROBLEM:
-                        throw new NotImplementedException(command + ": " + in.readUTF());
-                    default:
-                        throw new NotImplementedException("unexpected reply " + status + " to extension command " + command);
+                    case RESULT_SUCCESS: return in.readObject();
+                    case RESULT_NOT_IMPLEMENTED: throw new NotImplementedException(in.readUTF());
+                    case RESULT_INTERNAL_PROBLEM: throw new IllegalStateException("the agent failed on " + command + ": " + in.readUTF());
+                    case RESULT_TERMINATED: throw new IllegalStateException("the agent ended during " + command + ": " + in.readUTF());
+                    default: throw new IllegalStateException("the agent answered extension command " + command + " with status " + status);
                 }
-            } catch (IOException | ClassNotFoundException e) {
-                throw new NotImplementedException("extension command " + command + " failed: " + e);
             }
+        } catch (IOException | ClassNotFoundException e) {
+            throw new IllegalStateException("agent JVM unreachable during " + command + ": " + e, e);
         }
+    }
+
+    @Override
+    public void stop() {
+        connection.stopRunning();
     }
 
     @Override
