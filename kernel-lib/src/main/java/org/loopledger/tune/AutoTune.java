@@ -63,7 +63,12 @@ public final class AutoTune {
         Piv piv = Piv.of(s.bestKp, VelocityPi.ofRadPerS(s.bestKv, s.bestOmegaI));
         List<LoadCaseFigures> figures = new ArrayList<>();
         for (PlantCase pc : cases) figures.add(reanalyse(pc, piv, all, timing));
-        return new TuningResult(piv, all, timing, spec, figures, s.velocityMet && s.positionMet, s.binding, s.trace, s.evaluations, ms);
+        TuningResult screened = new TuningResult(piv, all, timing, spec, figures, s.velocityMet && s.positionMet, s.binding, s.trace, s.evaluations, ms);
+        if (!screened.specMet() || screened.reanalysisMeetsSpec()) return screened;
+        // the screen said yes, the refined re-analysis says no: report the truth
+        List<String> trace = new ArrayList<>(s.trace);
+        trace.add("the re-analysis of the chosen loops misses a limit that the screen passed; spec NOT met");
+        return new TuningResult(piv, all, timing, spec, figures, false, s.binding + "; re-analysis misses a limit", trace, s.evaluations, ms);
     }
 
     /**

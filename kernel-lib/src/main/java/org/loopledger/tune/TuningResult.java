@@ -15,7 +15,7 @@ import java.util.List;
  * @param filters           the filters on the current command: the user's, plus a low-pass if the tuner placed one
  * @param timing            the drive timing the tuning assumed
  * @param cases             achieved figures per load case
- * @param specMet           every limit met on every load case (by the tuner's screening; see the figures for the re-analysis)
+ * @param specMet           every limit met on every load case, by the screen and by the independent re-analysis
  * @param bindingConstraint the limit with the least headroom, or the one that fails
  * @param trace             search steps, one line each
  * @param evaluations       loop-gain evaluations screened

@@ -65,10 +65,16 @@ public final class TuningSpec {
 
     public boolean allowLowPass() { return allowLowPass; }
 
-    /** Whether the figures meet every robustness limit (stability included). */
+    /** Screening guard bands: the screen interpolates linearly between grid points, the re-analysis refines. */
+    static final double GUARD_PM_DEG = 0.5, GUARD_GM_DB = 0.1, GUARD_MS = 0.005;
+
+    /**
+     * Whether the screened figures meet every robustness limit (stability included), with small guard
+     * bands so that the refined re-analysis of the chosen loops meets them too.
+     */
     boolean meets(LoopFigures f) {
-        return f.stable() && f.phaseMarginDeg() >= minPhaseMarginDeg && f.gainMarginDb() >= minGainMarginDb
-                && f.sensitivityPeak() <= maxSensitivityPeak;
+        return f.stable() && f.phaseMarginDeg() >= minPhaseMarginDeg + GUARD_PM_DEG && f.gainMarginDb() >= minGainMarginDb + GUARD_GM_DB
+                && f.sensitivityPeak() <= maxSensitivityPeak - GUARD_MS;
     }
 
     /**
