@@ -9,13 +9,21 @@ import java.util.OptionalDouble;
  *
  * @param rows     one per requirement, in the order of {@link Spec}'s fields
  * @param warnings analysis warnings (band coverage, estimated integrators, ...)
+ * @param title    what was checked, for the record ("heavy head: velocity loop"); empty when not given
  */
-public record SpecReport(List<Row> rows, List<String> warnings) {
+public record SpecReport(List<Row> rows, List<String> warnings, String title) {
 
     public SpecReport {
         rows = List.copyOf(rows);
         warnings = List.copyOf(warnings);
+        title = title == null ? "" : title.strip();
     }
+
+    /** An untitled report. */
+    public SpecReport(List<Row> rows, List<String> warnings) { this(rows, warnings, ""); }
+
+    /** The same report under a title that says what was checked (shown in the record's spec summary). */
+    public SpecReport titled(String what) { return new SpecReport(rows, warnings, what); }
 
     /**
      * One requirement.
@@ -55,7 +63,7 @@ public record SpecReport(List<Row> rows, List<String> warnings) {
                     row.pass() ? "pass" : "FAIL"};
             for (int i = 0; i < w.length; i++) w[i] = Math.max(w[i], cells[r][i].length());
         }
-        StringBuilder b = new StringBuilder("Spec check: ").append(passed() ? "all requirements met" : failures().size() + " of " + rows.size() + " requirements FAIL").append('\n');
+        StringBuilder b = new StringBuilder(title.isEmpty() ? "Spec check: " : "Spec check, " + title + ": ").append(passed() ? "all requirements met" : failures().size() + " of " + rows.size() + " requirements FAIL").append('\n');
         line(b, head, w);
         StringBuilder rule = new StringBuilder();
         for (int i = 0; i < w.length; i++) rule.append("-".repeat(w[i])).append(i + 1 < w.length ? "  " : "");

@@ -16,8 +16,10 @@ public final class SpecReportRenderer {
     /** MIME type of the spec-report payload; equal to {@code SpecSummary.MIME}. */
     public static final String SPEC_REPORT_MIME = "application/vnd.loopledger.spec-report+json";
 
-    /** Title of the check in the record's summary. */
+    /** Title of an untitled check in the record's summary. */
     static final String TITLE = "Spec check";
+
+    private static String title(SpecReport r) { return r.title().isEmpty() ? TITLE : TITLE + ", " + r.title(); }
 
     private SpecReportRenderer() {}
 
@@ -33,7 +35,7 @@ public final class SpecReportRenderer {
         String verdict = r.passed() ? "all " + r.rows().size() + " requirements met" : r.failures().size() + " of " + r.rows().size() + " requirements not met";
         StringBuilder h = new StringBuilder(1024);
         h.append("<div class=\"loopledger-spec\">");
-        h.append("<table class=\"loopledger-table\"><caption>").append(HtmlEscape.escape(TITLE + ": " + verdict)).append("</caption>");
+        h.append("<table class=\"loopledger-table\"><caption>").append(HtmlEscape.escape(title(r) + ": " + verdict)).append("</caption>");
         h.append("<thead><tr><th>Requirement</th><th>Limit</th><th>Achieved</th><th>At</th><th>Result</th></tr></thead><tbody>");
         for (SpecReport.Row row : r.rows()) {
             h.append("<tr><td>").append(HtmlEscape.escape(row.requirement())).append("</td><td>").append(HtmlEscape.escape(row.limit()))
@@ -52,7 +54,7 @@ public final class SpecReportRenderer {
     /** The payload SpecSummary reads: title and rows of requirement, limit, achieved, at, pass. */
     public static String json(SpecReport r) {
         JsonObject o = new JsonObject();
-        o.addProperty("title", TITLE);
+        o.addProperty("title", r.title().isEmpty() ? TITLE : r.title());
         JsonArray rows = new JsonArray();
         for (SpecReport.Row row : r.rows()) {
             JsonObject j = new JsonObject();
