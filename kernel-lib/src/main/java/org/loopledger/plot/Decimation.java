@@ -4,10 +4,11 @@ import java.util.ArrayDeque;
 
 
 /**
- * Drops points of a curve that a reader cannot see: Ramer–Douglas–Peucker simplification in screen
- * coordinates (U. Ramer, "An iterative procedure for the polygonal approximation of plane curves",
- * Computer Graphics and Image Processing 1(3), 1972). Keeps plots small where curves are smooth and
- * keeps every point where they are not (resonances).
+ * Drops points of a curve that a reader cannot see: iterative end-point-fit polyline simplification in
+ * screen coordinates (U. Ramer, "An iterative procedure for the polygonal approximation of plane curves",
+ * Computer Graphics and Image Processing 1(3), 1972): keep the point farthest from the chord while it
+ * is farther than the tolerance, and recurse on both halves. Keeps plots small where curves are smooth
+ * and keeps every point where they are not (resonances).
  */
 final class Decimation {
     private Decimation() {}
