@@ -207,24 +207,13 @@ public final class StateSpace {
      * {@link #balanced()}). Throws at a pole on the imaginary axis (unit circle).
      */
     public void response(double[] omegaRadPerS, double[] re, double[] im) {
-        if (re.length < omegaRadPerS.length || im.length < omegaRadPerS.length) {
-            throw new IllegalArgumentException("output arrays (" + re.length + " and " + im.length + " entries) are shorter than the frequency grid ("
-                    + omegaRadPerS.length + " points); allocate one entry per frequency");
-        }
-        double ts = 0, nyq = Double.POSITIVE_INFINITY;
-        if (timeBase instanceof TimeBase.Sampled sm) {
-            ts = sm.sampleTimeS();
-            nyq = sm.nyquistRadPerS();
-        }
+        GridArguments.requireOutputs(omegaRadPerS, re, im);
+        double ts = GridArguments.sampleTimeS(timeBase);
         Resolvent r = new Resolvent(this);
         double[] out = new double[2];
         for (int i = 0; i < omegaRadPerS.length; i++) {
             double w = omegaRadPerS[i];
-            if (!Double.isFinite(w)) throw new IllegalArgumentException("frequency " + w + " at index " + i + " is not finite; give finite rad/s values");
-            if (ts > 0 && Math.abs(w) > nyq * (1 + 1e-12)) {
-                throw new IllegalArgumentException("frequency " + Units.formatHz(Units.radPerSToHz(w)) + " (index " + i + ") lies above the Nyquist frequency "
-                        + Units.formatHz(Units.radPerSToHz(nyq)) + " of this sampled system; restrict the grid to [0, π/T]");
-            }
+            GridArguments.requireFrequency(w, i, ts);
             boolean ok = ts > 0 ? r.evaluate(Math.cos(w * ts), Math.sin(w * ts), out) : r.evaluate(0, w, out);
             if (!ok) {
                 throw new IllegalArgumentException("frequency " + Units.g4(w) + " rad/s (index " + i + ") is a pole of " + this

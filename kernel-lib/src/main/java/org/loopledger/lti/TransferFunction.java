@@ -184,25 +184,14 @@ public final class TransferFunction {
      * imaginary axis (unit circle), where G is infinite, rather than writing NaN.
      */
     public void response(double[] omegaRadPerS, double[] re, double[] im) {
-        if (re.length < omegaRadPerS.length || im.length < omegaRadPerS.length) {
-            throw new IllegalArgumentException("output arrays (" + re.length + " and " + im.length + " entries) are shorter than the frequency grid ("
-                    + omegaRadPerS.length + " points); allocate one entry per frequency");
-        }
-        double ts = 0, nyq = Double.POSITIVE_INFINITY;
-        if (timeBase instanceof TimeBase.Sampled sm) {
-            ts = sm.sampleTimeS();
-            nyq = sm.nyquistRadPerS();
-        }
+        GridArguments.requireOutputs(omegaRadPerS, re, im);
+        double ts = GridArguments.sampleTimeS(timeBase);
         final double[] nc = num.coefficientsShared(), dc = den.coefficientsShared();
         for (int i = 0; i < omegaRadPerS.length; i++) {
             double w = omegaRadPerS[i];
-            if (!Double.isFinite(w)) throw new IllegalArgumentException("frequency " + w + " at index " + i + " is not finite; give finite rad/s values");
+            GridArguments.requireFrequency(w, i, ts);
             double x, y;
             if (ts > 0) {
-                if (Math.abs(w) > nyq * (1 + 1e-12)) {
-                    throw new IllegalArgumentException("frequency " + Units.formatHz(Units.radPerSToHz(w)) + " (index " + i + ") lies above the Nyquist frequency "
-                            + Units.formatHz(Units.radPerSToHz(nyq)) + " of this sampled system; restrict the grid to [0, π/T]");
-                }
                 x = Math.cos(w * ts);
                 y = Math.sin(w * ts);
             } else {
