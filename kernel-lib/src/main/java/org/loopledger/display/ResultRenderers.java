@@ -7,6 +7,7 @@ import org.loopledger.control.Filter;
 import org.loopledger.ident.fit.BandQuality;
 import org.loopledger.ident.fit.FitResult;
 import org.loopledger.ident.fit.ParameterEstimate;
+import org.loopledger.lti.Motion;
 import org.loopledger.lti.Units;
 import org.loopledger.sim.Excitation;
 import org.loopledger.sim.ResponseMetrics;
@@ -90,8 +91,12 @@ public final class ResultRenderers {
         h.append("<p><strong>").append(r.specMet() ? "Spec met" : "Spec NOT met").append("</strong>; binding constraint: ")
                 .append(HtmlEscape.escape(r.bindingConstraint())).append("</p>");
         HtmlTable g = HtmlTable.of("Gains", "Parameter", "Value", "Unit");
-        g.row("Position gain Kp", Figures.num(r.piv().positionGainPerS()), "1/s");
-        g.row("Velocity gain Kv", Figures.num(r.piv().velocity().velocityGain()), "plant-input units per rad/s");
+        Motion motion = r.motion();
+        double kp = r.piv().positionGainPerS(), kv = r.piv().velocity().velocityGain();
+        g.row("Position gain Kp", Figures.num(kp), "1/s");
+        if (motion == Motion.LINEAR) g.row("Position gain Kp", Figures.num(Motion.metresPerMinutePerMm(kp)), "(m/min)/mm");
+        g.row("Velocity gain Kv", Figures.num(kv), "plant-input units " + motion.velocityGainUnit());
+        if (motion == Motion.LINEAR) g.row("Velocity gain Kv", Figures.num(Motion.perMmPerS(kv)), "plant-input units per mm/s");
         g.row("Velocity-integral corner", Figures.num(r.piv().velocity().integralCornerHz()), "Hz");
         g.row("Filters", r.filters().isEmpty() ? "none" : r.filters().toString(), "");
         g.appendTo(h);
