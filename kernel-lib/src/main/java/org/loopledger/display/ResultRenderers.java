@@ -4,6 +4,7 @@ import org.loopledger.analysis.Margins;
 import org.loopledger.control.BiquadCoefficients;
 import org.loopledger.control.CoefficientTable;
 import org.loopledger.control.Filter;
+import org.loopledger.control.PivParameters;
 import org.loopledger.ident.fit.BandQuality;
 import org.loopledger.ident.fit.FitResult;
 import org.loopledger.ident.fit.ParameterEstimate;
@@ -60,6 +61,13 @@ public final class ResultRenderers {
             q.appendTo(h);
         }
         return html(r.toString(), h.append("</div>").toString());
+    }
+
+    /** A drive's PIV parameter list in the axis' units, 6 significant digits, with the caution. */
+    public static MimeBundle pivParameters(PivParameters p) {
+        HtmlTable t = HtmlTable.of("PIV parameters, " + p.motion().label() + " axis (velocity gains in plant-input units, e.g. A)", "Parameter", "Value", "Unit");
+        for (PivParameters.Row r : p.rows()) t.row(r.parameter(), PivParameters.digits6(r.value()), r.unit());
+        return html(p.toString(), "<div class=\"loopledger-drive-parameters\">" + t + "<p><strong>Caution.</strong> " + HtmlEscape.escape(PivParameters.CAUTION) + "</p></div>");
     }
 
     /** Time-response figures of one simulated excitation. */

@@ -63,6 +63,9 @@ public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, Tun
         return sb.toString();
     }
 
+    /** The gains as a drive's parameter list in the axis' own units (rotary or linear). */
+    public org.loopledger.control.PivParameters driveParameters() { return org.loopledger.control.PivParameters.of(piv, motion); }
+
     /** The velocity crossover the tuning achieved on its worst (lowest) load case, in Hz. */
     public double worstVelocityCrossoverHz() {
         return cases.stream().mapToDouble(LoadCaseFigures::velocityCrossoverHz).min().orElse(Double.NaN);
