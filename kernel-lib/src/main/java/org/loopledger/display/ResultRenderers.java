@@ -73,10 +73,10 @@ public final class ResultRenderers {
     /** Time-response figures of one simulated excitation. */
     public static MimeBundle response(ResponseMetrics m) {
         Excitation x = m.excitation();
-        String unit = x.errorUnit();
+        String unit = x.errorUnit(m.motion());
         boolean step = x == Excitation.POSITION_STEP || x == Excitation.VELOCITY_STEP;
         boolean disturbance = x == Excitation.TORQUE_DISTURBANCE_STEP;
-        HtmlTable t = HtmlTable.of("Response to a " + x.label(), "Figure", "Value", "Unit");
+        HtmlTable t = HtmlTable.of("Response to a " + x.label(m.motion()), "Figure", "Value", "Unit");
         if (step) {
             t.row("Rise time (10-90 %)", ms(m.riseTimeS()), "ms");
             t.row("Overshoot", Figures.opt(m.overshootPct()), "%");

@@ -17,6 +17,8 @@ import org.loopledger.ident.fit.TwoMassFit;
 import org.loopledger.ident.fit.TwoMassParameters;
 import org.loopledger.lti.Motion;
 import org.loopledger.lti.TransferFunction;
+import org.loopledger.sim.ServoSimulation;
+import org.loopledger.sim.TimeResponse;
 import org.loopledger.tune.AutoTune;
 import org.loopledger.tune.PlantCase;
 import org.loopledger.tune.TuningResult;
@@ -105,6 +107,17 @@ class LinearAxisUnitsTest {
         assertEquals(kp * 60 / 1000, Double.parseDouble(kp2.get(1)), 5e-4 * kp * 60 / 1000);
         assertFalse(d.text().contains("rad"), d.text());
         assertEquals(PivParameters.of(t.piv(), Motion.LINEAR), t.driveParameters());
+
+        // simulated responses on the fitted model say m and m/s, and "force" for the disturbance
+        ServoSimulation sim = ServoSimulation.of(model, t.piv(), t.filters(), DriveTiming.sampledAtHz(8000)).withMotion(Motion.LINEAR);
+        TimeResponse step = sim.positionStep(10e-6, 0.2);
+        assertEquals(Motion.LINEAR, step.metrics().motion());
+        assertTrue(step.toString().contains("position step of 1e-05 m:") && !step.toString().contains("rad"), step.toString());
+        Document sd = Jsoup.parse(Bundles.of(step.metrics()).get(MimeBundle.TEXT_HTML).orElseThrow());
+        assertEquals("m", row(sd, "Peak following error", 0).get(2));
+        TimeResponse dist = sim.torqueDisturbanceStep(1, 0.2);
+        assertTrue(dist.toString().startsWith("force-disturbance step") && !dist.toString().contains("rad"), dist.toString());
+        assertTrue(sim.velocityStep(0.01, 0.1).metrics().toString().contains(" m/s"));
     }
 
     @Test
