@@ -84,6 +84,20 @@ public enum Motion {
     /** A position gain in 1/s expressed in (m/min)/mm (K<sub>p</sub>·60/1000, common practice). */
     public static double metresPerMinutePerMm(double positionGainPerS) { return positionGainPerS * 60 / 1000; }
 
+    /**
+     * The unit of a plant from {@code inputUnit} (e.g. "A") to position ({@code integrators} = 2), velocity (1)
+     * or acceleration (0): "rad/A", "(rad/s)/A", "(rad/s²)/A" or "m/A", "(m/s)/A", "(m/s²)/A".
+     */
+    public String plantUnit(int integrators, String inputUnit) {
+        String out = switch (integrators) {
+            case 2 -> position;
+            case 1 -> "(" + velocity + ")";
+            case 0 -> "(" + velocity + "²)";
+            default -> throw new IllegalArgumentException("a plant to position (2 integrators), velocity (1) or acceleration (0), got " + integrators);
+        };
+        return out + "/" + inputUnit;
+    }
+
     /** "rotary" or "linear". */
     public String label() { return this == ROTARY ? "rotary" : "linear"; }
 }

@@ -17,6 +17,7 @@ import org.loopledger.ident.fit.TwoMassFit;
 import org.loopledger.ident.fit.TwoMassParameters;
 import org.loopledger.lti.Motion;
 import org.loopledger.lti.TransferFunction;
+import org.loopledger.plot.BodePlot;
 import org.loopledger.sim.ServoSimulation;
 import org.loopledger.sim.TimeResponse;
 import org.loopledger.tune.AutoTune;
@@ -134,6 +135,16 @@ class LinearAxisUnitsTest {
                 List.of(PlantCase.of("rotary", measured()), PlantCase.linear("linear", measured())), DriveTiming.continuous(), FilterChain.none(),
                 TuningSpec.defaults()));
         assertTrue(e.getMessage().contains("'linear' is linear") && e.getMessage().contains("all rotary"), e.getMessage());
+    }
+
+    @Test
+    void bodeMagnitudeAxisNamesThePlantUnit() {
+        assertEquals("(m/s)/A", Motion.LINEAR.plantUnit(1, "A"));
+        assertEquals("m/A", Motion.LINEAR.plantUnit(2, "A"));
+        assertEquals("(rad/s²)/A", Motion.ROTARY.plantUnit(0, "A"));
+        var fig = BodePlot.create().magnitudeUnit(Motion.LINEAR.plantUnit(1, "A")).add("carriage", measured()).figure();
+        assertEquals("Magnitude (dB re 1 (m/s)/A)", fig.panels().get(0).getYAxisTitle());
+        assertEquals("Magnitude (dB)", BodePlot.of("x", measured()).panels().get(0).getYAxisTitle(), "unchanged by default");
     }
 
     @Test
