@@ -20,8 +20,8 @@ class NotebookRunnerTest {
             return List.of(new Output.ExecuteResult(count, Map.of("text/plain", source.toUpperCase()), Map.of()));
         }
 
-        @Override public String evaluateQuietly(String expression) {
-            return "[{\"path\":\"datasets/a.csv\",\"bytes\":3,\"sha256\":\"" + "0".repeat(64) + "\"}]";
+        @Override public String provenanceJson() {
+            return "[{\"path\":\"datasets/a.csv\",\"bytes\":3,\"sha256\":\"" + "0".repeat(64) + "\",\"reads\":1}]";
         }
 
         @Override public void close() {}
