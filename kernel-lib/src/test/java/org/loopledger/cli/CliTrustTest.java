@@ -304,4 +304,83 @@ class CliTrustTest {
         }
         assertEquals(DemoDatasets.HEADER, Files.readAllLines(out.resolve(GantryLoadCase.EMPTY_CARRIAGE.fileName())).get(0));
     }
+
+    // ---- cases that run cells (each starts one JShell agent JVM) ----
+
+    static JsonObject loopledgerMeta(Path nb) throws IOException {
+        return JsonParser.parseString(Files.readString(nb)).getAsJsonObject().getAsJsonObject("metadata").getAsJsonObject("loopledger");
+    }
+
+    /** Item 2: a failing --in-place run costs no stored output; --allow-errors runs on and says so in its exit status. */
+    @Test
+    void aFailedInPlaceRunLeavesTheNotebookAloneAndAllowErrorsRunsEveryCell() throws Exception {
+        Path nb = dir.resolve("tuning.ipynb");
+        String stored = notebook(true, new String[] {"int a = 1;", "if (a == 1) throw new IllegalStateException(\"gain table missing\");",
+                "System.out.println(\"later \" + a);"}, new String[] {null, null, "stored result of an earlier good run\n"});
+        Files.writeString(nb, stored);
+        Result r = cli("run", nb.toString(), "--in-place");
+        assertEquals(1, r.exit(), r.all());
+        assertEquals(stored, Files.readString(nb), "the notebook keeps every stored output");
+        Path partial = dir.resolve("tuning.failed.ipynb");
+        assertTrue(r.stderr().contains("left unchanged") && r.stderr().contains(partial.toString()), "says where the partial result went: " + r.all());
+        String p = Files.readString(partial);
+        assertTrue(p.contains("gain table missing"), "the error is in the partial result");
+        assertEquals(3, loopledgerMeta(partial).getAsJsonArray("failed_cells").get(0).getAsJsonObject().get("cell").getAsInt(),
+                "the metadata names the failed notebook cell");
+
+        Path all = dir.resolve("all.ipynb");
+        Result allowed = cli("run", nb.toString(), "--allow-errors", "-o", all.toString());
+        assertEquals(RunCommand.EXIT_CELLS_FAILED, allowed.exit(), allowed.all());
+        assertTrue(allowed.stderr().contains("1 of 3 code cells failed") && allowed.stderr().contains("cell 3 (") && allowed.stderr().contains("IllegalStateException: gain table missing"), allowed.all());
+        String out = Files.readString(all);
+        assertTrue(out.contains("later 1") && out.contains("gain table missing"), "every cell ran and the error is recorded: " + out);
+        assertEquals(stored, Files.readString(nb));
+    }
+
+    /**
+     * Items 4 and 5: a cell that replaces System.out cannot hide the data read, and verify fails on a changed
+     * dataset even when no output depends on the changed column.
+     */
+    @Test
+    void provenanceSurvivesSetOutAndVerifyChecksEveryDatasetDigest() throws Exception {
+        Path csv = dir.resolve("axis-log.csv");
+        Files.writeString(csv, "position_rad,velocity_rad_s\n1.0,10\n2.0,20\n");
+        String path = csv.toString().replace("\\", "\\\\");
+        Path nb = dir.resolve("quiet.ipynb");
+        Files.writeString(nb, notebook(false, new String[] {
+                "System.setOut(new java.io.PrintStream(java.io.OutputStream.nullOutputStream()));",
+                "var csv = java.nio.file.Path.of(\"" + path + "\");\norg.loopledger.provenance.Provenance.recordDataset(csv);\n"
+                        + "double sum = java.nio.file.Files.readAllLines(csv).stream().skip(1).mapToDouble(l -> Double.parseDouble(l.split(\",\")[0])).sum();",
+                "System.err.println(\"sum of positions = \" + sum);"}, null));
+        Path out = dir.resolve("quiet.out.ipynb");
+        Result r = cli("run", nb.toString());
+        assertEquals(0, r.exit(), r.all());
+        JsonArray ds = loopledgerMeta(out).getAsJsonArray("datasets");
+        assertEquals(1, ds.size(), "the dataset is recorded although System.out was replaced: " + ds);
+        assertEquals(sha256(Files.readAllBytes(csv)), ds.get(0).getAsJsonObject().get("sha256").getAsString());
+        assertTrue(Files.readString(out).contains("sum of positions = 3.0"));
+        // Change only the column no output depends on.
+        Files.writeString(csv, "position_rad,velocity_rad_s\n1.0,10\n2.0,21\n");
+        Result v = cli("verify", out.toString());
+        assertEquals(1, v.exit(), v.all());
+        assertTrue(v.stdout().contains("all 3 code cells reproduce"), "the outputs alone would pass: " + v.all());
+        assertTrue(v.stdout().contains("DATA DIFFERS") && v.stdout().contains(csv.toString()) && v.stdout().contains("read by cell 3"),
+                "names the dataset and the cell that read it: " + v.all());
+    }
+
+    /** Item 6: an endless cell is stopped after --cell-timeout, named by index and first line; the run fails. */
+    @Test
+    void anEndlessCellIsStoppedAfterTheCellTimeoutAndNamed() throws Exception {
+        Path nb = dir.resolve("loops.ipynb");
+        Files.writeString(nb, notebook(false, new String[] {"int spins = 0;", "while (true) { spins++; }", "System.out.println(\"never\");"}, null));
+        long t0 = System.nanoTime();
+        Result r = cli("run", nb.toString(), "--cell-timeout", "3s");
+        double s = (System.nanoTime() - t0) / 1e9;
+        assertEquals(1, r.exit(), r.all());
+        assertTrue(r.stderr().contains("code cell 2 (notebook cell 3, first line: while (true) { spins++; })")
+                && r.stderr().contains("cell timeout of 3 s"), r.all());
+        String out = Files.readString(dir.resolve("loops.out.ipynb"));
+        assertTrue(out.contains("CellTimeout") && !out.contains("never\\n"), out);
+        assertTrue(s < 120, "the run ended (took " + s + " s)");
+    }
 }
