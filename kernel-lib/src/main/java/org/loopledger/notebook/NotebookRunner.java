@@ -25,7 +25,7 @@ import java.util.function.Consumer;
  * executed notebook with outputs, execution counts and, in the notebook metadata under
  * {@code loopledger}, the library version, the run date, the datasets read and the cells that failed.
  * A cell that runs longer than {@link Options#cellTimeout} is interrupted; one that ignores the
- * interrupt for {@link #FORCE_STOP_GRACE} is ended by {@link CellEngine#forceStop}.
+ * interrupt for {@link Options#forceStopGrace} is ended by {@link CellEngine#forceStop}.
  * The input notebook value is not modified (values are immutable); writing is the caller's choice.
  */
 public final class NotebookRunner {
@@ -37,13 +37,18 @@ public final class NotebookRunner {
     /**
      * How to run.
      *
-     * @param cellTimeout longest time one cell may run; zero means no limit
-     * @param allowErrors keep running after a failing cell (its error is recorded) instead of stopping
+     * @param cellTimeout    longest time one cell may run; zero means no limit
+     * @param allowErrors    keep running after a failing cell (its error is recorded) instead of stopping
+     * @param forceStopGrace how long a timed-out cell may take to end after the interrupt before
+     *                       {@link CellEngine#forceStop} ({@link #FORCE_STOP_GRACE} by default)
      */
-    public record Options(Duration cellTimeout, boolean allowErrors) {
+    public record Options(Duration cellTimeout, boolean allowErrors, Duration forceStopGrace) {
         public Options {
             if (cellTimeout == null || cellTimeout.isNegative()) throw new IllegalArgumentException("cell timeout must be zero (no limit) or positive, got " + cellTimeout);
+            if (forceStopGrace == null || forceStopGrace.isNegative()) throw new IllegalArgumentException("force-stop grace must be positive, got " + forceStopGrace);
         }
+
+        public Options(Duration cellTimeout, boolean allowErrors) { this(cellTimeout, allowErrors, FORCE_STOP_GRACE); }
 
         /** Stop at the first failure, {@link #DEFAULT_CELL_TIMEOUT} per cell. */
         public static Options defaults() { return new Options(DEFAULT_CELL_TIMEOUT, false); }
@@ -114,7 +119,7 @@ public final class NotebookRunner {
                 count++;
                 long tc = System.nanoTime();
                 progress.accept(String.format(Locale.ROOT, "cell %d of %d (notebook cell %d) ...", count, total, cellNumber));
-                List<Output> outputs = executeWithTimeout(engine, code.source(), count, cellNumber, options.cellTimeout(), watchdog);
+                List<Output> outputs = executeWithTimeout(engine, code.source(), count, cellNumber, options, watchdog);
                 out.add(code.withResults(count, outputs));
                 trackProvenance(engine, cellNumber, datasets, reads, readers);
                 double s = (System.nanoTime() - tc) / 1e9, all = (System.nanoTime() - t0) / 1e9;
@@ -147,8 +152,9 @@ public final class NotebookRunner {
         return "(empty)";
     }
 
-    private static List<Output> executeWithTimeout(CellEngine engine, String source, int count, int cellNumber, Duration timeout,
+    private static List<Output> executeWithTimeout(CellEngine engine, String source, int count, int cellNumber, Options options,
                                                    ScheduledExecutorService watchdog) {
+        Duration timeout = options.cellTimeout(), grace = options.forceStopGrace();
         if (timeout.isZero()) return engine.execute(source, count);
         AtomicBoolean timedOut = new AtomicBoolean(), forced = new AtomicBoolean();
         ScheduledFuture<?> interrupt = watchdog.schedule(() -> {
@@ -158,7 +164,7 @@ public final class NotebookRunner {
         ScheduledFuture<?> force = watchdog.schedule(() -> {
             forced.set(true);
             engine.forceStop();
-        }, timeout.plus(FORCE_STOP_GRACE).toMillis(), TimeUnit.MILLISECONDS);
+        }, timeout.plus(grace).toMillis(), TimeUnit.MILLISECONDS);
         List<Output> outputs;
         try {
             outputs = engine.execute(source, count);
@@ -168,15 +174,17 @@ public final class NotebookRunner {
         }
         if (!timedOut.get()) return outputs;
         // The cell ran out of time: its own interrupt or restart error is replaced by one that says why.
-        String seconds = timeout.toMillis() % 1000 == 0 ? timeout.toSeconds() + " s" : timeout.toMillis() / 1000.0 + " s";
         String what = "code cell " + count + " (notebook cell " + cellNumber + ", first line: " + firstLine(source) + ") ran longer than the cell timeout of "
-                + seconds + " and was stopped" + (forced.get() ? "; it ignored the interrupt for " + FORCE_STOP_GRACE.toSeconds()
-                + " s, so its Java session was ended" : "");
+                + seconds(timeout) + " and was stopped" + (forced.get() ? "; it ignored the interrupt for " + seconds(grace) + ", so its Java session was ended" : "");
         List<Output> kept = new ArrayList<>();
         for (Output o : outputs) if (!(o instanceof Output.Error)) kept.add(o);
         kept.add(new Output.Error("CellTimeout", what, List.of("CellTimeout: " + what,
                 "Raise the limit with --cell-timeout (e.g. --cell-timeout 30m, or 0 for none) if the cell needs longer.")));
         return kept;
+    }
+
+    private static String seconds(Duration d) {
+        return d.toMillis() % 1000 == 0 ? d.toSeconds() + " s" : d.toMillis() / 1000.0 + " s";
     }
 
     /** Reads the session's provenance after a cell and notes which datasets this cell read. */
