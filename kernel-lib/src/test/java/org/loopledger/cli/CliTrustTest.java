@@ -257,7 +257,8 @@ class CliTrustTest {
         for (String must : new String[] {"--allow-errors", "--cell-timeout", "--in-place", "NAME.failed.ipynb", "Exit status", "3"}) {
             assertTrue(run.stdout().replaceAll("\\s+", "").contains(must.replace(" ", "")), "run --help mentions " + must + ":\n" + run.stdout());
         }
-        assertTrue(cli("verify", "--help").stdout().contains("SHA-256"), "verify --help says it checks the datasets");
+        Result verify = cli("verify", "--help");
+        assertTrue(verify.stdout().contains("SHA-256") && verify.stdout().contains("--cell-timeout"), "verify checks the datasets and has a cell timeout: " + verify.stdout());
         assertEquals(2, cli("run").exit(), "missing NOTEBOOK");
         assertEquals(2, cli("run", "x.ipynb", "--no-such-option").exit());
         assertEquals(2, cli("run", "x.ipynb", "--cell-timeout", "soon").exit());
