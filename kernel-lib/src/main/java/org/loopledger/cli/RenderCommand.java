@@ -13,7 +13,11 @@ import java.nio.file.Path;
 import java.util.concurrent.Callable;
 
 /** {@code loopledger render NOTEBOOK [-o RECORD.html]}: the HTML record of an executed notebook, without re-running it. */
-@Command(name = "render", description = "Render an executed notebook into its self-contained HTML tuning record.")
+@Command(name = "render", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
+        description = {"Render an executed notebook into its self-contained HTML tuning record.",
+                "Never writes over the notebook or over an existing file that is not HTML."},
+        exitCodeListHeading = "Exit status:%n",
+        exitCodeList = {"0:the record was written", "2:bad usage or input: nothing was written"})
 final class RenderCommand implements Callable<Integer> {
     @Parameters(index = "0", paramLabel = "NOTEBOOK", description = "a notebook executed by 'loopledger run'")
     Path notebook;
@@ -26,7 +30,7 @@ final class RenderCommand implements Callable<Integer> {
         try {
             Notebook nb = NotebookJson.read(notebook);
             Path target = output != null ? output : NotebookFiles.sibling(notebook, ".html");
-            RunCommand.requireFolder(target);
+            OutputTargets.check(target, OutputTargets.Kind.HTML, output != null ? "-o" : "the output", false, notebook);
             var info = NotebookRunner.recordInfo(nb, notebook.getFileName().toString(), System.getProperty("java.version"));
             AtomicFiles.writeString(target, RecordRenderer.render(nb, info));
             System.err.println("loopledger: wrote record " + target);
