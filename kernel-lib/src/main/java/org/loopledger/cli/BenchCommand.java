@@ -13,7 +13,7 @@ import java.util.concurrent.Callable;
  * {@code loopledger bench tune}: auto-tune speed against the general analysis path;
  * {@code loopledger bench spectral}: H1 + coherence against SciPy.
  */
-@Command(name = "bench", description = {"Benchmarks, each against a reference measured in the same run:",
+@Command(name = "bench", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class, description = {"Benchmarks, each against a reference measured in the same run:",
         "'kernel' start-up and cell latency against ipykernel; 'runner NOTEBOOK' run and verify against jupyter nbconvert --execute;",
         "'tune' auto-tune against screening through the general analysis path; 'spectral' H1 + coherence against SciPy."})
 final class BenchCommand implements Callable<Integer> {

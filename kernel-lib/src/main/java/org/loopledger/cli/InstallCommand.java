@@ -16,7 +16,7 @@ import java.util.concurrent.TimeUnit;
  * Jupyter data directory (user: {@code ~/.local/share/jupyter/kernels}; prefix: {@code DIR/share/jupyter/kernels};
  * sys-prefix: {@code sys.prefix} of {@code /usr/bin/python3} + {@code /share/jupyter/kernels}).
  */
-@Command(name = "install", description = "Install the Jupyter kernelspec 'loopledger'.")
+@Command(name = "install", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class, description = "Install the Jupyter kernelspec 'loopledger'.")
 final class InstallCommand implements Callable<Integer> {
     static final class Where {
         @Option(names = "--user", description = "into ~/.local/share/jupyter/kernels (default)")

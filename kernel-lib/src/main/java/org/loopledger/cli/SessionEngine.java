@@ -34,15 +34,13 @@ final class SessionEngine implements CellEngine {
     }
 
     @Override
-    public String evaluateQuietly(String expression) {
-        CellResult r = session.execute("System.out.print(" + expression + ");", "provenance", OutputListener.IGNORE);
-        StringBuilder sb = new StringBuilder();
-        for (CellOutput o : r.outputs()) {
-            if (o instanceof CellOutput.Error e) throw new IllegalStateException(e.name() + ": " + e.value());
-            if (o instanceof CellOutput.Stream s && CellOutput.Stream.STDOUT.equals(s.name())) sb.append(s.text());
-        }
-        return sb.toString();
-    }
+    public String provenanceJson() { return session.provenanceJson(); }
+
+    @Override
+    public void interrupt() { session.interrupt(); }
+
+    @Override
+    public void forceStop() { session.killAgent(); }
 
     @Override
     public void close() { session.close(); }

@@ -1,5 +1,6 @@
 package org.loopledger.control;
 
+import org.loopledger.lti.Motion;
 import org.loopledger.lti.TransferFunction;
 import org.loopledger.lti.Units;
 
@@ -115,8 +116,13 @@ public final class Pid {
 
     @Override public int hashCode() { return Objects.hash(kp, ki, kd, tau); }
 
-    @Override public String toString() {
-        return "PID: KP = " + Units.g4(kp) + " per rad, KI = " + Units.g4(ki) + " per rad·s, KD = " + Units.g4(kd) + " per rad/s, "
+    /** As {@link #describe(Motion)} for a rotary axis. */
+    @Override public String toString() { return describe(Motion.ROTARY); }
+
+    /** The gains per rad, rad·s and rad/s of position error on a rotary axis, per m, m·s and m/s on a linear one. */
+    public String describe(Motion motion) {
+        String x = motion.positionUnit();
+        return "PID: KP = " + Units.g4(kp) + " per " + x + ", KI = " + Units.g4(ki) + " per " + x + "·s, KD = " + Units.g4(kd) + " per " + motion.velocityUnit() + ", "
                 + (tau > 0 ? "derivative filter " + Checks.hz(1 / tau) + " (τ = " + Units.g4(tau) + " s)" : "no derivative filter");
     }
 }

@@ -1,5 +1,6 @@
 package org.loopledger.control;
 
+import org.loopledger.lti.Motion;
 import org.loopledger.lti.TransferFunction;
 import org.loopledger.lti.Units;
 
@@ -104,8 +105,19 @@ public final class Piv {
 
     @Override public int hashCode() { return Objects.hash(kp, velocity); }
 
-    @Override public String toString() {
-        return "PIV: Kp = " + Units.g4(kp) + " 1/s, Kv = " + Units.g4(velocity.velocityGain()) + " per rad/s, integral corner "
-                + (velocity.hasIntegral() ? Checks.hz(velocity.integralCornerRadPerS()) : "none");
+    /** As {@link #describe(Motion)} for a rotary axis. */
+    @Override public String toString() { return describe(Motion.ROTARY); }
+
+    /**
+     * The gains in the axis' own units: K<sub>v</sub> per rad/s on a rotary axis; per m/s on a linear one,
+     * where K<sub>v</sub> per mm/s and K<sub>p</sub> in (m/min)/mm follow in brackets (common practice).
+     */
+    public String describe(Motion motion) {
+        Objects.requireNonNull(motion, "motion");
+        double kv = velocity.velocityGain();
+        String integral = ", integral corner " + (velocity.hasIntegral() ? Checks.hz(velocity.integralCornerRadPerS()) : "none");
+        if (motion == Motion.ROTARY) return "PIV: Kp = " + Units.g4(kp) + " 1/s, Kv = " + Units.g4(kv) + " " + motion.velocityGainUnit() + integral;
+        return "PIV: Kp = " + Units.g4(kp) + " 1/s (" + Units.g4(Motion.metresPerMinutePerMm(kp)) + " (m/min)/mm), Kv = " + Units.g4(kv) + " "
+                + motion.velocityGainUnit() + " (" + Units.g4(Motion.perMmPerS(kv)) + " per mm/s)" + integral;
     }
 }

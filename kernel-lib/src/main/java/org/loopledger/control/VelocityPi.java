@@ -11,7 +11,8 @@ import java.util.Objects;
  * C<sub>v</sub>(s) = K<sub>v</sub>·(1 + ω<sub>i</sub>/s) = K<sub>v</sub>·(s + ω<sub>i</sub>)/s.
  *
  * <p><b>Units.</b> K<sub>v</sub> is in plant-input units per rad/s of velocity error: A/(rad/s)
- * (= A·s/rad) for a current-commanded drive, N·m·s/rad when the plant input is a torque. The
+ * (= A·s/rad) for a current-commanded drive, N·m·s/rad when the plant input is a torque; on a linear
+ * axis per m/s instead ({@link org.loopledger.lti.Motion}; the numbers are the same, the names differ). The
  * velocity-integral corner ω<sub>i</sub> is the frequency where the integral and proportional
  * parts are equal; rad/s inside, Hz in {@link #of}. ω<sub>i</sub> = 0 means no integral action.
  *
@@ -76,7 +77,11 @@ public final class VelocityPi {
 
     @Override public int hashCode() { return Objects.hash(kv, omegaI); }
 
-    @Override public String toString() {
-        return "velocity PI: Kv = " + Units.g4(kv) + " per rad/s, integral corner " + (omegaI == 0 ? "none" : Checks.hz(omegaI));
+    /** As {@link #describe(org.loopledger.lti.Motion)} for a rotary axis. */
+    @Override public String toString() { return describe(org.loopledger.lti.Motion.ROTARY); }
+
+    /** K<sub>v</sub> per rad/s (rotary) or per m/s (linear), and the integral corner. */
+    public String describe(org.loopledger.lti.Motion motion) {
+        return "velocity PI: Kv = " + Units.g4(kv) + " " + motion.velocityGainUnit() + ", integral corner " + (omegaI == 0 ? "none" : Checks.hz(omegaI));
     }
 }

@@ -17,6 +17,7 @@ final class BuiltinRenderers {
         r.register(org.loopledger.analysis.Margins.class, MarginsRenderer::render);
         r.register(org.loopledger.analysis.SpecReport.class, SpecReportRenderer::render);
         r.register(org.loopledger.control.CoefficientTable.class, ResultRenderers::coefficients);
+        r.register(org.loopledger.control.PivParameters.class, ResultRenderers::pivParameters);
         r.register(org.loopledger.ident.fit.FitResult.class, ResultRenderers::fit);
         r.register(org.loopledger.sim.ResponseMetrics.class, ResultRenderers::response);
         r.register(org.loopledger.tune.TuningResult.class, ResultRenderers::tuning);

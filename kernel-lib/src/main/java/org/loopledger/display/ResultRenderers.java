@@ -4,9 +4,11 @@ import org.loopledger.analysis.Margins;
 import org.loopledger.control.BiquadCoefficients;
 import org.loopledger.control.CoefficientTable;
 import org.loopledger.control.Filter;
+import org.loopledger.control.PivParameters;
 import org.loopledger.ident.fit.BandQuality;
 import org.loopledger.ident.fit.FitResult;
 import org.loopledger.ident.fit.ParameterEstimate;
+import org.loopledger.lti.Motion;
 import org.loopledger.lti.Units;
 import org.loopledger.sim.Excitation;
 import org.loopledger.sim.ResponseMetrics;
@@ -61,13 +63,20 @@ public final class ResultRenderers {
         return html(r.toString(), h.append("</div>").toString());
     }
 
+    /** A drive's PIV parameter list in the axis' units, 6 significant digits, with the caution. */
+    public static MimeBundle pivParameters(PivParameters p) {
+        HtmlTable t = HtmlTable.of("PIV parameters, " + p.motion().label() + " axis (velocity gains in plant-input units, e.g. A)", "Parameter", "Value", "Unit");
+        for (PivParameters.Row r : p.rows()) t.row(r.parameter(), PivParameters.digits6(r.value()), r.unit());
+        return html(p.toString(), "<div class=\"loopledger-drive-parameters\">" + t + "<p><strong>Caution.</strong> " + HtmlEscape.escape(PivParameters.CAUTION) + "</p></div>");
+    }
+
     /** Time-response figures of one simulated excitation. */
     public static MimeBundle response(ResponseMetrics m) {
         Excitation x = m.excitation();
-        String unit = x.errorUnit();
+        String unit = x.errorUnit(m.motion());
         boolean step = x == Excitation.POSITION_STEP || x == Excitation.VELOCITY_STEP;
         boolean disturbance = x == Excitation.TORQUE_DISTURBANCE_STEP;
-        HtmlTable t = HtmlTable.of("Response to a " + x.label(), "Figure", "Value", "Unit");
+        HtmlTable t = HtmlTable.of("Response to a " + x.label(m.motion()), "Figure", "Value", "Unit");
         if (step) {
             t.row("Rise time (10-90 %)", ms(m.riseTimeS()), "ms");
             t.row("Overshoot", Figures.opt(m.overshootPct()), "%");
@@ -90,8 +99,12 @@ public final class ResultRenderers {
         h.append("<p><strong>").append(r.specMet() ? "Spec met" : "Spec NOT met").append("</strong>; binding constraint: ")
                 .append(HtmlEscape.escape(r.bindingConstraint())).append("</p>");
         HtmlTable g = HtmlTable.of("Gains", "Parameter", "Value", "Unit");
-        g.row("Position gain Kp", Figures.num(r.piv().positionGainPerS()), "1/s");
-        g.row("Velocity gain Kv", Figures.num(r.piv().velocity().velocityGain()), "plant-input units per rad/s");
+        Motion motion = r.motion();
+        double kp = r.piv().positionGainPerS(), kv = r.piv().velocity().velocityGain();
+        g.row("Position gain Kp", Figures.num(kp), "1/s");
+        if (motion == Motion.LINEAR) g.row("Position gain Kp", Figures.num(Motion.metresPerMinutePerMm(kp)), "(m/min)/mm");
+        g.row("Velocity gain Kv", Figures.num(kv), "plant-input units " + motion.velocityGainUnit());
+        if (motion == Motion.LINEAR) g.row("Velocity gain Kv", Figures.num(Motion.perMmPerS(kv)), "plant-input units per mm/s");
         g.row("Velocity-integral corner", Figures.num(r.piv().velocity().integralCornerHz()), "Hz");
         g.row("Filters", r.filters().isEmpty() ? "none" : r.filters().toString(), "");
         g.appendTo(h);

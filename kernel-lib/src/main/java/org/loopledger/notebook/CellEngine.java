@@ -13,10 +13,20 @@ public interface CellEngine extends AutoCloseable {
     List<Output> execute(String source, int executionCount);
 
     /**
-     * Evaluates a Java expression of type String without recording it as a cell (no output, no
-     * execution count) and returns its value; used to read the session's provenance at the end of a run.
+     * The datasets the session has read so far, as a JSON array of objects {@code path, bytes, sha256,
+     * reads} ({@code reads} counts the reads of that path), fetched over a channel that cell code cannot
+     * redirect (not the cell's standard output). Never recorded as a cell.
      */
-    String evaluateQuietly(String expression);
+    String provenanceJson();
+
+    /** Stops the running cell (called from another thread by the runner's timeout); harmless when none runs. */
+    default void interrupt() {}
+
+    /**
+     * Ends a cell that an {@link #interrupt} did not stop (a loop that swallows the stop), e.g. by ending
+     * the process that runs it; {@link #execute} then returns with an error. Called from another thread.
+     */
+    default void forceStop() {}
 
     @Override void close();
 }

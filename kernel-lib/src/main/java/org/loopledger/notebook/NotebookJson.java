@@ -50,13 +50,17 @@ public final class NotebookJson {
     /** Parses notebook JSON text; {@code name} is used in error messages. */
     public static Notebook parse(String text, String name) {
         JsonElement root;
+        NotebookSchema.requireShallow(text, name);
         try {
             root = JsonParser.parseString(text);
         } catch (JsonParseException e) {
             throw new IllegalArgumentException(name + " is not a notebook: it is not valid JSON (" + e.getMessage() + ")");
+        } catch (StackOverflowError e) {
+            throw new IllegalArgumentException(name + " is not a notebook: its JSON nests too deeply to read");
         }
         if (!root.isJsonObject()) throw new IllegalArgumentException(name + " is not a notebook: the top level is not a JSON object");
         JsonObject o = root.getAsJsonObject();
+        NotebookSchema.check(o, name);
         if (!o.has("nbformat")) throw new IllegalArgumentException(name + " is not a notebook: it has no 'nbformat' field");
         int major = o.get("nbformat").getAsInt();
         if (major != 4) {

@@ -242,6 +242,13 @@ public final class PlainTextNotebook {
         return new Notebook(Math.max(sources.nbformatMinor(), stored.nbformatMinor()), meta.toString(), cells);
     }
 
+    /** Each cell's kind and source, in order: what must agree between a plain-text notebook and its executed .ipynb. */
+    public static List<String> sourcesOf(Notebook nb) {
+        List<String> r = new ArrayList<>();
+        for (Cell c : nb.cells()) r.add((c instanceof Cell.Code ? "code" : c instanceof Cell.Markdown ? "markdown" : "raw") + "\n" + c.source());
+        return r;
+    }
+
     private static String sortedCompact(JsonElement e) {
         return sorted(e).toString();
     }

@@ -18,6 +18,7 @@ public final class BodePlot {
     private final List<Curve> curves = new ArrayList<>();
     private final List<Mark> marks = new ArrayList<>();
     private String title = "";
+    private String magnitudeUnit = "";
     private int widthPx = 640;
     private int panelHeightPx = 260;
 
@@ -29,6 +30,15 @@ public final class BodePlot {
     public static Figure of(String label, Frf frf) { return create().add(label, frf).figure(); }
 
     public BodePlot title(String title) { this.title = title; return this; }
+
+    /**
+     * The unit the magnitude is relative to, shown on its axis as "Magnitude (dB re 1 UNIT)"; for a plant
+     * use {@code Motion.plantUnit} (e.g. "(m/s)/A" for a linear axis to velocity). Empty: plain "Magnitude (dB)".
+     */
+    public BodePlot magnitudeUnit(String unit) {
+        this.magnitudeUnit = java.util.Objects.requireNonNull(unit, "unit (\"\" for none)");
+        return this;
+    }
 
     public BodePlot sizePx(int widthPx, int panelHeightPx) {
         if (widthPx < 200 || panelHeightPx < 120) throw new IllegalArgumentException("a Bode panel needs at least 200x120 px, got " + widthPx + "x" + panelHeightPx);
@@ -48,7 +58,7 @@ public final class BodePlot {
 
     public Figure figure() {
         if (curves.isEmpty()) throw new IllegalArgumentException("a Bode plot needs at least one curve: call add(label, frf)");
-        XYChart mag = ChartStyle.newChart(widthPx, panelHeightPx, null, "", "Magnitude (dB)");
+        XYChart mag = ChartStyle.newChart(widthPx, panelHeightPx, null, "", magnitudeUnit.isEmpty() ? "Magnitude (dB)" : "Magnitude (dB re 1 " + magnitudeUnit + ")");
         XYChart ph = ChartStyle.newChart(widthPx, panelHeightPx, null, "Frequency (Hz)", "Phase (deg)");
         mag.getStyler().setXAxisLogarithmic(true);
         ph.getStyler().setXAxisLogarithmic(true);

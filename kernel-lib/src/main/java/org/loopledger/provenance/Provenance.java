@@ -16,7 +16,9 @@ import java.util.Map;
 /**
  * What a session read: every dataset file a loader opened, with its SHA-256, so that a tuning record
  * can state exactly which data it was computed from. Loaders call {@link #recordDataset}; the
- * notebook runner reads {@link #datasets()} at the end of a run. Thread-safe; one registry per JVM.
+ * notebook runner reads {@link #datasetsJson()} after every cell through the session's control channel
+ * (an extension command of the JShell agent, not the cell's standard output, which a cell may redirect
+ * with {@code System.setOut}). Thread-safe; one registry per JVM.
  */
 public final class Provenance {
     /** A dataset file as read: path as given by the user, size and SHA-256 of its bytes. */
@@ -25,6 +27,8 @@ public final class Provenance {
     }
 
     private static final Map<String, Dataset> DATASETS = new LinkedHashMap<>();
+    /** How often each path was read, so the runner can tell which cell read a file read before. */
+    private static final Map<String, Long> READS = new LinkedHashMap<>();
 
     private Provenance() {}
 
@@ -32,6 +36,7 @@ public final class Provenance {
     public static synchronized Dataset recordDataset(Path file) {
         Dataset d = digest(file);
         DATASETS.put(d.path(), d);
+        READS.merge(d.path(), 1L, Long::sum);
         return d;
     }
 
@@ -39,7 +44,10 @@ public final class Provenance {
     public static synchronized List<Dataset> datasets() { return new ArrayList<>(DATASETS.values()); }
 
     /** Forgets everything (a new session). */
-    public static synchronized void clear() { DATASETS.clear(); }
+    public static synchronized void clear() {
+        DATASETS.clear();
+        READS.clear();
+    }
 
     /** SHA-256 of a file's bytes. */
     public static Dataset digest(Path file) {
@@ -56,7 +64,7 @@ public final class Provenance {
         }
     }
 
-    /** The datasets as a JSON array (path, bytes, sha256), for the runner to carry across the JShell boundary. */
+    /** The datasets as a JSON array (path, bytes, sha256, reads), for the runner to carry across the JShell boundary. */
     public static synchronized String datasetsJson() {
         StringBuilder sb = new StringBuilder("[");
         boolean first = true;
@@ -64,7 +72,7 @@ public final class Provenance {
             if (!first) sb.append(',');
             first = false;
             sb.append("{\"path\":\"").append(escape(d.path())).append("\",\"bytes\":").append(d.bytes())
-                    .append(",\"sha256\":\"").append(d.sha256()).append("\"}");
+                    .append(",\"sha256\":\"").append(d.sha256()).append("\",\"reads\":").append(READS.getOrDefault(d.path(), 1L)).append('}');
         }
         return sb.append(']').toString();
     }

@@ -1,5 +1,7 @@
 package org.loopledger.sim;
 
+import org.loopledger.lti.Motion;
+
 /** What drives a simulated response. */
 public enum Excitation {
     /** Position reference step, both loops closed; reference and following error in rad. */
@@ -21,6 +23,16 @@ public enum Excitation {
 
     public String label() { return label; }
 
-    /** Unit of the reference and of the following error. */
+    /** Unit of the reference and of the following error on a rotary axis. */
     public String errorUnit() { return errorUnit; }
+
+    /** Unit of the reference and of the following error: rad, rad/s on a rotary axis, m, m/s on a linear one. */
+    public String errorUnit(Motion motion) {
+        return this == VELOCITY_STEP ? motion.velocityUnit() : motion.positionUnit();
+    }
+
+    /** The label, with "force" for "torque" on a linear axis. */
+    public String label(Motion motion) {
+        return this == TORQUE_DISTURBANCE_STEP ? motion.forceName() + "-disturbance step" : label;
+    }
 }

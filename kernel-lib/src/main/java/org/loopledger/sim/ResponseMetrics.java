@@ -1,5 +1,6 @@
 package org.loopledger.sim;
 
+import org.loopledger.lti.Motion;
 import org.loopledger.lti.Units;
 
 import java.util.Objects;
@@ -20,7 +21,13 @@ import java.util.OptionalDouble;
  * </ul>
  */
 public record ResponseMetrics(Excitation excitation, OptionalDouble riseTimeS, OptionalDouble overshootPct, OptionalDouble settlingTimeS,
-                              double peakFollowingError, double finalFollowingError, double peakCurrent, double recordLengthS) {
+                              double peakFollowingError, double finalFollowingError, double peakCurrent, double recordLengthS, Motion motion) {
+    /** A rotary axis. */
+    public ResponseMetrics(Excitation excitation, OptionalDouble riseTimeS, OptionalDouble overshootPct, OptionalDouble settlingTimeS,
+                           double peakFollowingError, double finalFollowingError, double peakCurrent, double recordLengthS) {
+        this(excitation, riseTimeS, overshootPct, settlingTimeS, peakFollowingError, finalFollowingError, peakCurrent, recordLengthS, Motion.ROTARY);
+    }
+
     /** The settling band, 2 % of the target. */
     public static final double SETTLING_BAND = 0.02;
 
@@ -29,6 +36,7 @@ public record ResponseMetrics(Excitation excitation, OptionalDouble riseTimeS, O
         Objects.requireNonNull(riseTimeS, "riseTimeS");
         Objects.requireNonNull(overshootPct, "overshootPct");
         Objects.requireNonNull(settlingTimeS, "settlingTimeS");
+        Objects.requireNonNull(motion, "motion (Motion.ROTARY or Motion.LINEAR)");
     }
 
     static ResponseMetrics of(TimeResponse r) {
@@ -63,7 +71,7 @@ public record ResponseMetrics(Excitation excitation, OptionalDouble riseTimeS, O
             }
             case POSITION_RAMP -> { }
         }
-        return new ResponseMetrics(r.excitation(), rise, over, settle, peakFe, finalFe, peakI, r.durationS());
+        return new ResponseMetrics(r.excitation(), rise, over, settle, peakFe, finalFe, peakI, r.durationS(), r.motion());
     }
 
     private static OptionalDouble crossing(double[] t, double[] y, double level) {
@@ -84,7 +92,7 @@ public record ResponseMetrics(Excitation excitation, OptionalDouble riseTimeS, O
     private static String ms(OptionalDouble v) { return v.isPresent() ? Units.g4(v.getAsDouble() * 1e3) + " ms" : "n/a"; }
 
     @Override public String toString() {
-        String unit = excitation.errorUnit();
+        String unit = excitation.errorUnit(motion);
         StringBuilder sb = new StringBuilder();
         if (excitation == Excitation.POSITION_STEP || excitation == Excitation.VELOCITY_STEP) {
             sb.append("rise time (10-90 %) ").append(ms(riseTimeS)).append(", overshoot ")

@@ -3,6 +3,7 @@ package org.loopledger.sim;
 import org.loopledger.control.DriveTiming;
 import org.loopledger.control.FilterChain;
 import org.loopledger.control.Piv;
+import org.loopledger.lti.Motion;
 import org.loopledger.lti.TransferFunction;
 import org.loopledger.lti.Units;
 
@@ -39,8 +40,11 @@ public final class ServoSimulation {
     private final DriveTiming timing;
     private final double currentLimit;
     private final AntiWindup antiWindup;
+    private final Motion motion;
 
-    private ServoSimulation(TransferFunction plant, Piv piv, FilterChain filters, DriveTiming timing, double currentLimit, AntiWindup antiWindup) {
+    private ServoSimulation(TransferFunction plant, Piv piv, FilterChain filters, DriveTiming timing, double currentLimit, AntiWindup antiWindup,
+                            Motion motion) {
+        this.motion = motion;
         this.plant = plant;
         this.piv = piv;
         this.filters = filters;
@@ -70,17 +74,25 @@ public final class ServoSimulation {
             throw new IllegalArgumentException("the simulation runs the discrete controller: give the drive's sample rate (DriveTiming.sampledAtHz)");
         }
         filters.requireBelowNyquist(timing.sampleRateHz());
-        return new ServoSimulation(plantToVelocity, piv, filters, timing, Double.POSITIVE_INFINITY, AntiWindup.CONDITIONAL_INTEGRATION);
+        return new ServoSimulation(plantToVelocity, piv, filters, timing, Double.POSITIVE_INFINITY, AntiWindup.CONDITIONAL_INTEGRATION, Motion.ROTARY);
     }
 
     /** Clamp the current command to ±{@code limit} (plant-input units, e.g. A; positive). */
     public ServoSimulation withCurrentLimit(double limit) {
         if (!(limit > 0)) throw new IllegalArgumentException("current limit must be positive (e.g. 10 A), got " + limit);
-        return new ServoSimulation(plant, piv, filters, timing, limit, antiWindup);
+        return new ServoSimulation(plant, piv, filters, timing, limit, antiWindup, motion);
     }
 
     public ServoSimulation withAntiWindup(AntiWindup a) {
-        return new ServoSimulation(plant, piv, filters, timing, currentLimit, Objects.requireNonNull(a, "anti-windup"));
+        return new ServoSimulation(plant, piv, filters, timing, currentLimit, Objects.requireNonNull(a, "anti-windup"), motion);
+    }
+
+    /**
+     * A linear axis (plant to velocity in m/s, positions in m) or rotary (the default, rad/s and rad): the
+     * numbers are computed alike, the responses say which units they are in.
+     */
+    public ServoSimulation withMotion(Motion m) {
+        return new ServoSimulation(plant, piv, filters, timing, currentLimit, antiWindup, Objects.requireNonNull(m, "motion"));
     }
 
     public double currentLimit() { return currentLimit; }
@@ -155,7 +167,7 @@ public final class ServoSimulation {
                 rest.apply(x, ub, dist, scratch);
             }
         }
-        return new TimeResponse(kind, amplitude, fs, t, ref, pos, vel, cur, fe);
+        return new TimeResponse(kind, amplitude, fs, t, ref, pos, vel, cur, fe, motion);
     }
 
     @Override public String toString() {

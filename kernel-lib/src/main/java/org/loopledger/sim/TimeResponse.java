@@ -1,5 +1,6 @@
 package org.loopledger.sim;
 
+import org.loopledger.lti.Motion;
 import org.loopledger.lti.Units;
 
 import java.util.Arrays;
@@ -15,11 +16,19 @@ import java.util.Objects;
  *       reaches the plant after the computation delay);</li>
  *   <li>{@code followingError}: reference - position (reference - velocity for a velocity step).</li>
  * </ul>
+ * On a {@link Motion#LINEAR} axis ({@code motion}) positions are in m and velocities in m/s instead of rad and rad/s.
  */
 public record TimeResponse(Excitation excitation, double amplitude, double sampleRateHz, double[] timeS, double[] reference,
-                           double[] positionRad, double[] velocityRadPerS, double[] current, double[] followingError) {
+                           double[] positionRad, double[] velocityRadPerS, double[] current, double[] followingError, Motion motion) {
+    /** A rotary axis. */
+    public TimeResponse(Excitation excitation, double amplitude, double sampleRateHz, double[] timeS, double[] reference,
+                        double[] positionRad, double[] velocityRadPerS, double[] current, double[] followingError) {
+        this(excitation, amplitude, sampleRateHz, timeS, reference, positionRad, velocityRadPerS, current, followingError, Motion.ROTARY);
+    }
+
     public TimeResponse {
         Objects.requireNonNull(excitation, "excitation");
+        Objects.requireNonNull(motion, "motion (Motion.ROTARY or Motion.LINEAR)");
         int n = timeS.length;
         for (double[] a : new double[][] {reference, positionRad, velocityRadPerS, current, followingError}) {
             if (a.length != n) throw new IllegalArgumentException("time response arrays differ in length: " + a.length + " vs " + n);
@@ -52,7 +61,7 @@ public record TimeResponse(Excitation excitation, double amplitude, double sampl
     public ResponseMetrics metrics() { return ResponseMetrics.of(this); }
 
     @Override public boolean equals(Object o) {
-        return o instanceof TimeResponse t && t.excitation == excitation && t.amplitude == amplitude && t.sampleRateHz == sampleRateHz
+        return o instanceof TimeResponse t && t.excitation == excitation && t.motion == motion && t.amplitude == amplitude && t.sampleRateHz == sampleRateHz
                 && Arrays.equals(t.timeS, timeS) && Arrays.equals(t.reference, reference) && Arrays.equals(t.positionRad, positionRad)
                 && Arrays.equals(t.velocityRadPerS, velocityRadPerS) && Arrays.equals(t.current, current) && Arrays.equals(t.followingError, followingError);
     }
@@ -63,12 +72,11 @@ public record TimeResponse(Excitation excitation, double amplitude, double sampl
 
     @Override public String toString() {
         String unit = switch (excitation) {
-            case POSITION_STEP -> "rad";
-            case POSITION_RAMP -> "rad/s";
-            case VELOCITY_STEP -> "rad/s";
+            case POSITION_STEP -> motion.positionUnit();
+            case POSITION_RAMP, VELOCITY_STEP -> motion.velocityUnit();
             case TORQUE_DISTURBANCE_STEP -> "(plant-input units)";
         };
-        return excitation.label() + " of " + Units.g4(amplitude) + " " + unit + ": " + timeS.length + " samples over " + Units.g4(durationS())
+        return excitation.label(motion) + " of " + Units.g4(amplitude) + " " + unit + ": " + timeS.length + " samples over " + Units.g4(durationS())
                 + " s at " + Units.formatHz(sampleRateHz) + "; " + metrics();
     }
 }

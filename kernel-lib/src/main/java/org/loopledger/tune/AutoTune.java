@@ -9,6 +9,7 @@ import org.loopledger.control.Piv;
 import org.loopledger.control.VelocityPi;
 import org.loopledger.frf.FrequencyGrid;
 import org.loopledger.frf.Frf;
+import org.loopledger.lti.Motion;
 import org.loopledger.lti.TransferFunction;
 import org.loopledger.lti.Units;
 
@@ -52,6 +53,13 @@ public final class AutoTune {
     /** Tunes for the worst case over several load cases. */
     public static TuningResult onMeasured(List<PlantCase> cases, DriveTiming timing, FilterChain filters, TuningSpec spec) {
         if (cases.isEmpty()) throw new IllegalArgumentException("give at least one load case to tune on");
+        Motion motion = cases.get(0).motion();
+        for (PlantCase pc : cases) {
+            if (pc.motion() != motion) {
+                throw new IllegalArgumentException("load case '" + pc.label() + "' is " + pc.motion().label() + " but '" + cases.get(0).label() + "' is "
+                        + motion.label() + "; tune the load cases of one axis together, all rotary (rad/s) or all linear (m/s)");
+            }
+        }
         long t0 = System.nanoTime();
         List<CaseArrays> arrays = new ArrayList<>();
         for (PlantCase pc : cases) arrays.add(new CaseArrays(pc, timing, filters));
@@ -63,12 +71,12 @@ public final class AutoTune {
         Piv piv = Piv.of(s.bestKp, VelocityPi.ofRadPerS(s.bestKv, s.bestOmegaI));
         List<LoadCaseFigures> figures = new ArrayList<>();
         for (PlantCase pc : cases) figures.add(reanalyse(pc, piv, all, timing));
-        TuningResult screened = new TuningResult(piv, all, timing, spec, figures, s.velocityMet && s.positionMet, s.binding, s.trace, s.evaluations, ms);
+        TuningResult screened = new TuningResult(piv, all, timing, spec, figures, s.velocityMet && s.positionMet, s.binding, s.trace, s.evaluations, ms, motion);
         if (!screened.specMet() || screened.reanalysisMeetsSpec()) return screened;
         // the screen said yes, the refined re-analysis says no: report the truth
         List<String> trace = new ArrayList<>(s.trace);
         trace.add("the re-analysis of the chosen loops misses a limit that the screen passed; spec NOT met");
-        return new TuningResult(piv, all, timing, spec, figures, false, s.binding + "; re-analysis misses a limit", trace, s.evaluations, ms);
+        return new TuningResult(piv, all, timing, spec, figures, false, s.binding + "; re-analysis misses a limit", trace, s.evaluations, ms, motion);
     }
 
     /**
@@ -77,10 +85,15 @@ public final class AutoTune {
      * frequency) and tuned like data.
      */
     public static TuningResult onModel(TransferFunction plantToVelocity, DriveTiming timing, FilterChain filters, TuningSpec spec) {
+        return onModel(plantToVelocity, Motion.ROTARY, timing, filters, spec);
+    }
+
+    /** As {@link #onModel(TransferFunction, DriveTiming, FilterChain, TuningSpec)}, for a rotary (rad/s) or linear (m/s) axis. */
+    public static TuningResult onModel(TransferFunction plantToVelocity, Motion motion, DriveTiming timing, FilterChain filters, TuningSpec spec) {
         if (plantToVelocity.isDiscrete()) throw new IllegalArgumentException("give the continuous plant model; the drive timing adds sampling effects");
         double top = timing.isSampled() ? 0.45 * timing.sampleRateHz() : 5000;
         double[] grid = FrequencyGrid.logHz(0.5, top, 3000);
-        return onMeasured(List.of(PlantCase.of("model", Frf.ofModel(plantToVelocity, grid))), timing, filters, spec);
+        return onMeasured(List.of(PlantCase.of("model", Frf.ofModel(plantToVelocity, grid), motion)), timing, filters, spec);
     }
 
     static LoadCaseFigures reanalyse(PlantCase pc, Piv piv, FilterChain filters, DriveTiming timing) {

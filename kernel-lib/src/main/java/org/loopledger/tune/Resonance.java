@@ -6,7 +6,7 @@ import org.loopledger.lti.Units;
  * A lightly damped resonance found in a measured plant response.
  *
  * @param frequencyHz     frequency of the peak
- * @param prominenceDb    height of the peak above the rigid-body trend (|P|·ω flattened), dB
+ * @param prominenceDb    height of the peak above the rigid-body trend (|P|·ω<sup>n</sup> flattened, n net integrators), dB
  * @param halfPowerWidthHz width of the peak 3 dB below its top
  * @param dampingEstimate ζ ≈ width / (2·f) from the half-power bandwidth (common practice)
  */

@@ -3,46 +3,88 @@ package org.loopledger.tune;
 import org.loopledger.frf.Frf;
 
 import java.util.ArrayList;
+import java.util.Arrays;
 import java.util.Comparator;
 import java.util.List;
 
 /**
- * Finds lightly damped resonances in a measured plant FRF (current or torque to velocity).
+ * Finds lightly damped resonances (peaks) and antiresonances (dips) in a measured plant FRF, from
+ * current, torque or force to position, velocity or acceleration.
  *
- * <p>The rigid-body trend of a velocity plant falls at -20 dB/decade; multiplying |P| by ω flattens it,
- * so a resonance shows as a peak of 20·log10(|P|·ω) above its running median (over one octave around
- * each point). A peak counts when it stands at least {@code minProminenceDb} above that trend. Its
- * half-power width is read where the curve falls 3 dB below the peak on both sides, and the damping is
- * estimated as ζ ≈ Δf/(2f) (half-power bandwidth method; common practice, e.g. Ewins, Modal Testing,
- * 2nd ed., §4.3, from memory).
+ * <p>The rigid-body trend of a plant with n net integrators falls at -20·n dB/decade (n = 2 to position,
+ * 1 to velocity, 0 to acceleration; a negative n for differentiators); multiplying |P| by ω<sup>n</sup>
+ * flattens it, so a resonance shows as a peak of 20·log10(|P|·ω<sup>n</sup>) above its running median (over one
+ * octave around each point) and an antiresonance as a dip below it. A peak (dip) counts when it stands at
+ * least {@code minProminenceDb} above (below) that trend. Its half-power width is read where the curve
+ * falls 3 dB below the peak (rises 3 dB above the dip) on both sides, and the damping is estimated as
+ * ζ ≈ Δf/(2f) (half-power bandwidth method; common practice, e.g. Ewins, Modal Testing, 2nd ed., §4.3, from
+ * memory; for a dip |1 - x² + 2jζx| doubles its squared value at x ≈ 1 ± ζ, the same width, derivation by hand).
+ * The frequency is that of the extreme grid point: the grid's resolution limits it.
  */
 public final class Resonances {
+    /** Net integrators of a plant to position (current → position: 1/s²). */
+    public static final int TO_POSITION = 2;
+    /** Net integrators of a plant to velocity (current → velocity: 1/s), the default. */
+    public static final int TO_VELOCITY = 1;
+    /** Net integrators of a plant to acceleration (current → acceleration: a constant). */
+    public static final int TO_ACCELERATION = 0;
+
     private Resonances() {}
 
-    /** Resonances standing at least {@code minProminenceDb} (&gt; 0) above the rigid-body trend, strongest first. */
+    /** Resonances of a plant to velocity standing at least {@code minProminenceDb} (&gt; 0) above the rigid-body trend, strongest first. */
     public static List<Resonance> find(Frf plantToVelocity, double minProminenceDb) {
-        if (!(minProminenceDb > 0)) throw new IllegalArgumentException("minimum prominence must be a positive number of dB, got " + minProminenceDb);
-        double[] w = plantToVelocity.omegaRadPerS();
-        double[] mag = plantToVelocity.magnitude();
+        return find(plantToVelocity, TO_VELOCITY, minProminenceDb);
+    }
+
+    /**
+     * Resonances of a plant with {@code integrators} net integrators in its rigid-body trend ({@link #TO_POSITION},
+     * {@link #TO_VELOCITY}, {@link #TO_ACCELERATION}, or any other whole number, negative for differentiators),
+     * standing at least {@code minProminenceDb} (&gt; 0) above that trend, strongest first.
+     */
+    public static List<Resonance> find(Frf plant, int integrators, double minProminenceDb) {
+        List<Resonance> out = new ArrayList<>();
+        for (double[] e : extremes(plant, integrators, minProminenceDb, +1)) out.add(new Resonance(e[0], e[1], e[2], e[2] / (2 * e[0])));
+        out.sort(Comparator.comparingDouble(Resonance::prominenceDb).reversed());
+        return out;
+    }
+
+    /** Antiresonances of a plant to velocity at least {@code minDepthDb} (&gt; 0) below the rigid-body trend, deepest first. */
+    public static List<Antiresonance> findAntiresonances(Frf plantToVelocity, double minDepthDb) {
+        return findAntiresonances(plantToVelocity, TO_VELOCITY, minDepthDb);
+    }
+
+    /** As {@link #find(Frf, int, double)}, for dips: antiresonances at least {@code minDepthDb} (&gt; 0) below the trend, deepest first. */
+    public static List<Antiresonance> findAntiresonances(Frf plant, int integrators, double minDepthDb) {
+        List<Antiresonance> out = new ArrayList<>();
+        for (double[] e : extremes(plant, integrators, minDepthDb, -1)) out.add(new Antiresonance(e[0], e[1], e[2], e[2] / (2 * e[0])));
+        out.sort(Comparator.comparingDouble(Antiresonance::depthDb).reversed());
+        return out;
+    }
+
+    /** {frequency Hz, height above (sign +1) or depth below (sign -1) the trend in dB, half-power width Hz} per extreme. */
+    private static List<double[]> extremes(Frf plant, int integrators, double minDb, int sign) {
+        if (!(minDb > 0)) throw new IllegalArgumentException("minimum prominence must be a positive number of dB, got " + minDb);
+        if (Math.abs(integrators) > 6) {
+            throw new IllegalArgumentException("a plant with " + integrators + " net integrators is not a mechanical axis; give 2 (to position), 1 (to velocity) or 0 (to acceleration)");
+        }
+        double[] w = plant.omegaRadPerS();
+        double[] mag = plant.magnitude();
         int n = w.length;
         double[] y = new double[n];
-        for (int i = 0; i < n; i++) y[i] = 20 * Math.log10(mag[i] * w[i]);
+        for (int i = 0; i < n; i++) y[i] = sign * 20 * Math.log10(mag[i] * Math.pow(w[i], integrators));
         double[] trend = runningMedianOverOctave(w, y);
-        List<Resonance> out = new ArrayList<>();
+        List<double[]> out = new ArrayList<>();
         for (int i = 1; i < n - 1; i++) {
             if (!(y[i] >= y[i - 1] && y[i] > y[i + 1])) continue;
             double prom = y[i] - trend[i];
-            if (prom < minProminenceDb) continue;
+            if (prom < minDb) continue;
             int a = i, b = i;
             while (a > 0 && y[a] > y[i] - 3) a--;
             while (b < n - 1 && y[b] > y[i] - 3) b++;
             if (y[a] > y[i] - 3 || y[b] > y[i] - 3) continue; // the half-power points are outside the band
             double fa = interpolateHz(w, y, a, a + 1, y[i] - 3), fb = interpolateHz(w, y, b - 1, b, y[i] - 3);
-            double f = w[i] / (2 * Math.PI);
-            double width = fb - fa;
-            out.add(new Resonance(f, prom, width, width / (2 * f)));
+            out.add(new double[] {w[i] / (2 * Math.PI), prom, fb - fa});
         }
-        out.sort(Comparator.comparingDouble(Resonance::prominenceDb).reversed());
         return out;
     }
 
@@ -59,8 +101,8 @@ public final class Resonances {
         for (int i = 0; i < n; i++) {
             while (w[lo] < w[i] / Math.sqrt(2)) lo++;
             while (hi < n - 1 && w[hi + 1] <= w[i] * Math.sqrt(2)) hi++;
-            double[] win = java.util.Arrays.copyOfRange(y, lo, hi + 1);
-            java.util.Arrays.sort(win);
+            double[] win = Arrays.copyOfRange(y, lo, hi + 1);
+            Arrays.sort(win);
             r[i] = win[win.length / 2];
         }
         return r;

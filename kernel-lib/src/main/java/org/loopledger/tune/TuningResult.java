@@ -3,6 +3,7 @@ package org.loopledger.tune;
 import org.loopledger.control.DriveTiming;
 import org.loopledger.control.FilterChain;
 import org.loopledger.control.Piv;
+import org.loopledger.lti.Motion;
 
 import java.util.List;
 
@@ -20,12 +21,20 @@ import java.util.List;
  * @param trace             search steps, one line each
  * @param evaluations       loop-gain evaluations screened
  * @param elapsedMs         wall time of the search in ms
+ * @param motion            rotary or linear axis, as the load cases said: the units the gains are shown in
  */
 public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, TuningSpec spec, List<LoadCaseFigures> cases, boolean specMet,
-                           String bindingConstraint, List<String> trace, long evaluations, double elapsedMs) {
+                           String bindingConstraint, List<String> trace, long evaluations, double elapsedMs, Motion motion) {
     public TuningResult {
         cases = List.copyOf(cases);
         trace = List.copyOf(trace);
+        if (motion == null) throw new IllegalArgumentException("say whether the axis is Motion.ROTARY or Motion.LINEAR");
+    }
+
+    /** A rotary axis. */
+    public TuningResult(Piv piv, FilterChain filters, DriveTiming timing, TuningSpec spec, List<LoadCaseFigures> cases, boolean specMet,
+                        String bindingConstraint, List<String> trace, long evaluations, double elapsedMs) {
+        this(piv, filters, timing, spec, cases, specMet, bindingConstraint, trace, evaluations, elapsedMs, Motion.ROTARY);
     }
 
     /** Whether the independent re-analysis agrees that every load case meets the spec's limits. */
@@ -47,12 +56,15 @@ public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, Tun
     @Override public String toString() {
         StringBuilder sb = new StringBuilder();
         sb.append(specMet ? "Spec met" : "Spec NOT met").append(" — binding: ").append(bindingConstraint).append('\n');
-        sb.append("  ").append(piv).append('\n');
+        sb.append("  ").append(piv.describe(motion)).append('\n');
         sb.append("  filters: ").append(filters.isEmpty() ? "none" : filters.toString()).append('\n');
         for (LoadCaseFigures c : cases) sb.append("  ").append(c).append('\n');
         sb.append(String.format(java.util.Locale.ROOT, "  %d loop evaluations in %.1f ms", evaluations, elapsedMs));
         return sb.toString();
     }
+
+    /** The gains as a drive's parameter list in the axis' own units (rotary or linear). */
+    public org.loopledger.control.PivParameters driveParameters() { return org.loopledger.control.PivParameters.of(piv, motion); }
 
     /** The velocity crossover the tuning achieved on its worst (lowest) load case, in Hz. */
     public double worstVelocityCrossoverHz() {

@@ -20,8 +20,8 @@ class NotebookRunnerTest {
             return List.of(new Output.ExecuteResult(count, Map.of("text/plain", source.toUpperCase()), Map.of()));
         }
 
-        @Override public String evaluateQuietly(String expression) {
-            return "[{\"path\":\"datasets/a.csv\",\"bytes\":3,\"sha256\":\"" + "0".repeat(64) + "\"}]";
+        @Override public String provenanceJson() {
+            return "[{\"path\":\"datasets/a.csv\",\"bytes\":3,\"sha256\":\"" + "0".repeat(64) + "\",\"reads\":1}]";
         }
 
         @Override public void close() {}
@@ -66,5 +66,87 @@ class NotebookRunnerTest {
     void renderingAnUnexecutedNotebookExplainsWhatToDo() {
         var e = assertThrows(IllegalArgumentException.class, () -> NotebookRunner.recordInfo(nb("a"), "x.ipynb", "17"));
         assertTrue(e.getMessage().contains("loopledger run"));
+    }
+
+    /** An engine whose "spin" cell runs until interrupted and whose "stubborn" cell until forced; "read X" reads dataset X. */
+    static final class BlockingEngine implements CellEngine {
+        final java.util.concurrent.CountDownLatch interrupted = new java.util.concurrent.CountDownLatch(1);
+        final java.util.concurrent.CountDownLatch forced = new java.util.concurrent.CountDownLatch(1);
+        final java.util.Map<String, Integer> reads = new java.util.LinkedHashMap<>();
+
+        @Override public List<Output> execute(String source, int count) {
+            try {
+                if (source.contains("spin")) {
+                    interrupted.await();
+                    return List.of(new Output.Error("Interrupted", "stopped", List.of()));
+                }
+                if (source.contains("stubborn")) {
+                    forced.await();
+                    return List.of(new Output.Error("SessionRestarted", "ended", List.of()));
+                }
+            } catch (InterruptedException e) {
+                throw new AssertionError(e);
+            }
+            if (source.startsWith("read ")) reads.merge(source.substring(5), 1, Integer::sum);
+            return List.of();
+        }
+
+        @Override public String provenanceJson() {
+            StringBuilder sb = new StringBuilder("[");
+            reads.forEach((p, n) -> sb.append(sb.length() > 1 ? "," : "").append("{\"path\":\"").append(p)
+                    .append("\",\"bytes\":1,\"sha256\":\"ab\",\"reads\":").append(n).append('}'));
+            return sb.append(']').toString();
+        }
+
+        @Override public void interrupt() { interrupted.countDown(); }
+
+        @Override public void forceStop() { forced.countDown(); }
+
+        @Override public void close() {}
+    }
+
+    @Test
+    void aCellPastTheTimeoutIsInterruptedAndNamedByIndexAndFirstLine() {
+        BlockingEngine eng = new BlockingEngine();
+        var out = NotebookRunner.run(nb("int a = 1;", "\n  spin forever();\n more", "never"), eng, "0.1.0", "2026-12-01", s -> {},
+                new NotebookRunner.Options(java.time.Duration.ofMillis(200), false));
+        assertFalse(out.succeeded());
+        assertEquals(3, out.failedCellNumber());
+        assertTrue(out.failure().startsWith("CellTimeout: code cell 2 (notebook cell 3, first line: spin forever();)"), out.failure());
+        assertTrue(out.failure().contains("timeout of 0.2 s"), out.failure());
+        Cell.Code c = (Cell.Code) out.executed().cells().get(2);
+        assertEquals(1, c.outputs().size(), "the engine's own interrupt error is replaced: " + c.outputs());
+        Cell.Code after = (Cell.Code) out.executed().cells().get(3);
+        assertTrue(after.outputs().isEmpty() && after.executionCount() == null,
+                "the cell after it did not run and says so");
+        assertTrue(out.executed().metadataJson().contains("\"failed_cells\""), out.executed().metadataJson());
+    }
+
+    @Test
+    void aCellIgnoringTheInterruptIsForcedAfterTheGrace() {
+        BlockingEngine eng = new BlockingEngine();
+        var out = NotebookRunner.run(nb("stubborn"), eng, "0.1.0", "2026-12-01", s -> {},
+                new NotebookRunner.Options(java.time.Duration.ofMillis(100), false, java.time.Duration.ofMillis(100)));
+        assertEquals(0, eng.interrupted.getCount(), "interrupted first");
+        assertTrue(out.failure().contains("ignored the interrupt"), out.failure());
+    }
+
+    @Test
+    void allowErrorsRunsEveryCellAndListsEveryFailure() {
+        ScriptedEngine eng = new ScriptedEngine();
+        var out = NotebookRunner.run(nb("a", "fail one", "b", "fail two"), eng, "0.1.0", "2026-12-01", s -> {},
+                new NotebookRunner.Options(java.time.Duration.ZERO, true));
+        assertEquals(List.of("a", "fail one", "b", "fail two"), eng.ran);
+        assertEquals(List.of(3, 5), out.failures().stream().map(NotebookRunner.CellFailure::cellNumber).toList());
+        assertEquals(3, out.failedCellNumber());
+    }
+
+    @Test
+    void theCellsThatReadEachDatasetAreKnownAlsoOnASecondRead() {
+        BlockingEngine eng = new BlockingEngine();
+        var out = NotebookRunner.run(nb("read a.csv", "nothing", "read b.csv", "read a.csv"), eng, "0.1.0", "2026-12-01", s -> {});
+        assertEquals(List.of(2, 5), out.readersOf("a.csv"));
+        assertEquals(List.of(4), out.readersOf("b.csv"));
+        assertEquals(2, out.datasets().size());
     }
 }

@@ -9,7 +9,6 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.MethodSource;
 import org.loopledger.cli.Main;
 import org.loopledger.testing.PythonOracle;
-import picocli.CommandLine;
 
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
@@ -183,7 +182,26 @@ class PlainTextNotebookTest {
         assertEquals(2, main("convert", dir.resolve("missing.ipynb").toString()));
     }
 
+    @Test
+    void runVerifyAndRenderAcceptThePlainTextForm(@TempDir Path dir) throws Exception {
+        Path text = dir.resolve("axis.java");
+        Files.writeString(text, PlainTextNotebook.FORMAT_LINE + "\n\n//## markdown\n// # Plain-text check\n\n//## code\nint a = 20;\n"
+                + "System.out.println(\"a = \" + a);\n\n//## code\na * 2\n");
+        assertEquals(2, main("run", text.toString(), "--in-place"), "a plain-text notebook holds no outputs: --in-place is refused");
+        assertEquals(2, main("run", text.toString(), "-o", dir.resolve("other.java").toString()), "run writes .ipynb, not the plain-text form");
+        assertEquals(2, main("verify", text.toString()), "no executed axis.ipynb beside it yet");
+        Path executed = dir.resolve("axis.ipynb");
+        assertEquals(0, main("run", text.toString(), "-o", executed.toString()));
+        Notebook nb = NotebookJson.read(executed);
+        assertEquals("a = 20\n", ((Output.Stream) nb.codeCells().get(0).outputs().get(0)).text());
+        assertEquals(0, main("verify", text.toString()), "verify of the .java checks the stored outputs of axis.ipynb");
+        assertEquals(0, main("render", text.toString(), "-o", dir.resolve("axis.html").toString()));
+        assertTrue(Files.readString(dir.resolve("axis.html")).contains("a = 20"));
+        Files.writeString(text, Files.readString(text).replace("a * 2", "a * 3"));
+        assertEquals(2, main("verify", text.toString()), "sources differ from the executed notebook: refused, nothing run");
+    }
+
     private static int main(String... args) {
-        return new CommandLine(new Main()).execute(args);
+        return Main.commandLine().execute(args);
     }
 }

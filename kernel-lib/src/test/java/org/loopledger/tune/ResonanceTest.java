@@ -58,4 +58,49 @@ class ResonanceTest {
                 List.of(PlantCase.of("rigid", Frf.ofModel(AutoTuneTest.rigid(5e-4), grid))), drive, FilterChain.none(), spec, 6));
         assertTrue(e.getMessage().contains("no notch is needed"));
     }
+
+    /**
+     * Physical two-mass axis, motor side, from the equations of motion J_M s²θ_M = T - (c s + k)(θ_M - θ_L),
+     * J_L s²θ_L = (c s + k)(θ_M - θ_L): θ_M/T = (J_L s² + c s + k) / (s²·(J_M J_L s² + (J_M + J_L)(c s + k)))
+     * (derivation by hand). Times s^(2 - integrators): to position (2), velocity (1), acceleration (0).
+     */
+    static TransferFunction physicalTwoMass(double jm, double jl, double k, double c, int integrators) {
+        TransferFunction mech = TransferFunction.continuous(new double[] {jl, c, k}, new double[] {jm * jl, (jm + jl) * c, (jm + jl) * k, 0, 0});
+        TransferFunction s = TransferFunction.continuous(new double[] {1, 0}, new double[] {1});
+        for (int i = 0; i < 2 - integrators; i++) mech = mech.times(s);
+        return mech;
+    }
+
+    @Test
+    void antiresonanceAndResonanceOfATwoMassModelAtTheirClosedFormsToPositionVelocityAndAcceleration() {
+        double jm = 3e-4, jl = 6e-4, k = 2000, c = 0.01; // kg·m², N·m/rad, N·m·s/rad (invented, for the check only)
+        // closed forms (textbook / common practice): ω_a = √(k/J_L), ω_r = √(k (J_M + J_L)/(J_M J_L)); 290.6 Hz and 503.3 Hz
+        double fa = Math.sqrt(k / jl) / (2 * Math.PI), fr = Math.sqrt(k * (jm + jl) / (jm * jl)) / (2 * Math.PI);
+        // modal damping from the same polynomials (derivation by hand): 2ζ_a ω_a = c/J_L, 2ζ_r ω_r = c (J_M + J_L)/(J_M J_L)
+        double za = c / (2 * jl * 2 * Math.PI * fa), zr = c * (jm + jl) / (2 * jm * jl * 2 * Math.PI * fr);
+        double[] grid = FrequencyGrid.logHz(10, 3000, 6000); // points 0.095 % apart
+        for (int n : new int[] {Resonances.TO_POSITION, Resonances.TO_VELOCITY, Resonances.TO_ACCELERATION}) {
+            Frf p = Frf.ofModel(physicalTwoMass(jm, jl, k, c, n), grid);
+            List<Resonance> rs = Resonances.find(p, n, 6);
+            List<Antiresonance> as = Resonances.findAntiresonances(p, n, 6);
+            assertEquals(1, rs.size(), "integrators " + n + ": " + rs);
+            assertEquals(1, as.size(), "integrators " + n + ": " + as);
+            // Tolerance 0.2 %: two grid steps; damping shifts the extremes by O(ζ²) ≈ 1e-4 (derivation by hand)
+            assertEquals(fr, rs.get(0).frequencyHz(), 0.002 * fr, "resonance, integrators " + n);
+            assertEquals(fa, as.get(0).frequencyHz(), 0.002 * fa, "antiresonance, integrators " + n);
+            // half-power width Δf ≈ 2ζf (common practice); the neighbouring extreme and trend removal bias it: 25 %
+            assertEquals(zr, rs.get(0).dampingEstimate(), 0.25 * zr, "resonance damping, integrators " + n);
+            assertEquals(za, as.get(0).dampingEstimate(), 0.25 * za, "antiresonance damping, integrators " + n);
+            assertTrue(as.get(0).depthDb() > 20, as.get(0).toString());
+        }
+        // the velocity default agrees with the explicit form
+        Frf v = Frf.ofModel(physicalTwoMass(jm, jl, k, c, 1), grid);
+        assertEquals(Resonances.find(v, Resonances.TO_VELOCITY, 6), Resonances.find(v, 6));
+        assertEquals(Resonances.findAntiresonances(v, Resonances.TO_VELOCITY, 6), Resonances.findAntiresonances(v, 6));
+        // a rigid body to position has neither
+        Frf rigid = Frf.ofModel(TransferFunction.continuous(new double[] {1}, new double[] {5e-4, 0, 0}), FrequencyGrid.logHz(5, 3000, 500));
+        assertTrue(Resonances.find(rigid, Resonances.TO_POSITION, 3).isEmpty());
+        assertTrue(Resonances.findAntiresonances(rigid, Resonances.TO_POSITION, 3).isEmpty());
+        assertThrows(IllegalArgumentException.class, () -> Resonances.findAntiresonances(v, 1, 0));
+    }
 }

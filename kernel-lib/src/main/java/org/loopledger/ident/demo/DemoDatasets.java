@@ -63,6 +63,9 @@ public final class DemoDatasets {
         return c.axis().modalTruth(DriveLoopSettings.demo().measurementDelayS());
     }
 
+    /** The first line of {@link #readme()}, by which a README written here is recognised. */
+    public static String readmeTitle() { return "# Demo datasets: SYNTHETIC laser-marking gantry, axis X"; }
+
     public static String readme() {
         DriveLoopSettings s = DriveLoopSettings.demo();
         StringBuilder sb = new StringBuilder();
@@ -73,10 +76,10 @@ public final class DemoDatasets {
                 machine was measured. They exist to demonstrate and test identification, fitting and
                 tuning, with known true parameters to check against.
 
-                Regenerate them (byte for byte identical) with
-                `java -cp <kernel-lib classes and dependencies> org.loopledger.ident.demo.DemoDatasets datasets`
-                (the CLI will offer `./loopledger datasets`). A test compares the SHA-256 of these files
-                with a fresh in-memory generation, so they cannot drift from the generator.
+                Regenerate them (byte for byte identical) with `./loopledger datasets` (or
+                `./loopledger datasets FOLDER`); each file is written atomically, and a file of another
+                kind is never overwritten. A test compares the SHA-256 of these files with a fresh
+                in-memory generation, so they cannot drift from the generator.
 
                 ## Scenario (invented)
 

@@ -63,6 +63,37 @@ public final class Multisine {
         return new Multisine(ExcitationSignal.ofPeriod(d, sampleRateHz, synthesize(h, phase, periodSamples, rms), periods), h, phase, rms);
     }
 
+    /**
+     * Multisine on the given harmonics h of fs/P (distinct, 1 ≤ h &lt; P/2, any order; copied), equal amplitudes,
+     * Schroeder phases as above, scaled to {@code rms}. For example an odd multisine (h = 1, 3, 5, ...) leaves
+     * its even lines free, so that the noise and nonlinear-distortion floor can be read there
+     * ({@code PeriodicAverage.floor}).
+     */
+    public static Multisine ofHarmonics(int[] harmonics, int periodSamples, double rms, double sampleRateHz, int periods) {
+        ExcitationSignal.requireRate(sampleRateHz);
+        if (periodSamples < 4) throw new IllegalArgumentException("multisine period must have at least 4 samples, got " + periodSamples);
+        if (harmonics.length < 1) throw new IllegalArgumentException("multisine needs at least one line, got none");
+        if (!(rms > 0) || Double.isInfinite(rms)) throw new IllegalArgumentException("multisine RMS must be finite and positive, got " + rms);
+        int[] h = harmonics.clone();
+        Arrays.sort(h);
+        for (int i = 0; i < h.length; i++) {
+            if (h[i] < 1 || 2 * h[i] >= periodSamples) {
+                throw new IllegalArgumentException("harmonic " + h[i] + " is outside 1 .. " + ((periodSamples - 1) / 2) + " for a period of " + periodSamples + " samples");
+            }
+            if (i > 0 && h[i] == h[i - 1]) throw new IllegalArgumentException("harmonic " + h[i] + " is given twice");
+        }
+        int count = h.length;
+        double[] phase = new double[count];
+        for (int i = 1; i < count; i++) {
+            double s = 0;
+            for (int l = 0; l < i; l++) s += (h[i] - h[l]);
+            phase[i] = -2 * Math.PI * s / count;
+        }
+        double df = sampleRateHz / periodSamples;
+        String d = String.format(Locale.ROOT, "Schroeder multisine, %d given lines %.6g .. %.6g Hz, rms %.4g", count, h[0] * df, h[count - 1] * df, rms);
+        return new Multisine(ExcitationSignal.ofPeriod(d, sampleRateHz, synthesize(h, phase, periodSamples, rms), periods), h, phase, rms);
+    }
+
     private static double[] synthesize(int[] h, double[] phase, int periodSamples, double rms) {
         double[] x = new double[periodSamples];
         for (int i = 0; i < h.length; i++) {

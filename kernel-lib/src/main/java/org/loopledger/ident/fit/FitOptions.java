@@ -1,47 +1,78 @@
 package org.loopledger.ident.fit;
 
+import org.loopledger.lti.Motion;
+
 import java.util.Locale;
 
 /**
  * What to fit and how.
  *
- * @param torqueConstantNmPerA K<sub>t</sub>, known from the motor data sheet: an FRF fixes only K<sub>t</sub>/J,
- *                             so J and b are reported for the given K<sub>t</sub>
- * @param toPosition           the FRF is current → position (rad) rather than → velocity (rad/s)
+ * @param torqueConstantNmPerA the motor constant, known from the motor data sheet: K<sub>t</sub> in N·m/A for a
+ *                             {@link Motion#ROTARY} axis, the force constant K<sub>f</sub> in N/A for a
+ *                             {@link Motion#LINEAR} one (see {@link #motorConstantPerA()}). An FRF fixes only
+ *                             K<sub>t</sub>/J, so J and b are reported for the given constant
+ * @param toPosition           the FRF is current → position (rad or m) rather than → velocity (rad/s or m/s)
  * @param sampleTimeS          &gt; 0: fit the zero-order-hold sampled-data form at this sample time (what a
  *                             drive measures between held current and sampled velocity); 0: continuous model
  * @param fitDelay             also fit a pure delay τ ≥ 0 (otherwise τ = 0)
  * @param fLowHz               lowest frequency used
  * @param fHighHz              highest frequency used
+ * @param motion               rotary (inertia in kg·m², friction in N·m·s/rad) or linear (mass in kg, N·s/m)
  */
-public record FitOptions(double torqueConstantNmPerA, boolean toPosition, double sampleTimeS, boolean fitDelay, double fLowHz, double fHighHz) {
+public record FitOptions(double torqueConstantNmPerA, boolean toPosition, double sampleTimeS, boolean fitDelay, double fLowHz, double fHighHz,
+                         Motion motion) {
     public FitOptions {
+        if (motion == null) throw new IllegalArgumentException("say whether the axis is Motion.ROTARY or Motion.LINEAR");
         if (!(torqueConstantNmPerA > 0) || Double.isInfinite(torqueConstantNmPerA)) {
-            throw new IllegalArgumentException("torque constant must be finite and positive, got " + torqueConstantNmPerA + " N·m/A");
+            throw new IllegalArgumentException(motion.motorConstantName() + " must be finite and positive, got " + torqueConstantNmPerA + " " + motion.motorConstantUnit());
         }
         if (!(sampleTimeS >= 0) || Double.isInfinite(sampleTimeS)) throw new IllegalArgumentException("sample time must be 0 (continuous) or positive, got " + sampleTimeS + " s");
         if (!(fLowHz >= 0) || !(fHighHz > fLowHz)) throw new IllegalArgumentException("fit band " + fLowHz + " .. " + fHighHz + " Hz must have 0 <= low < high");
     }
 
-    /** Current → velocity, continuous model, no delay, the whole FRF. */
+    /** A rotary axis. */
+    public FitOptions(double torqueConstantNmPerA, boolean toPosition, double sampleTimeS, boolean fitDelay, double fLowHz, double fHighHz) {
+        this(torqueConstantNmPerA, toPosition, sampleTimeS, fitDelay, fLowHz, fHighHz, Motion.ROTARY);
+    }
+
+    /** Rotary axis, current → velocity, continuous model, no delay, the whole FRF. */
     public static FitOptions velocity(double torqueConstantNmPerA) {
-        return new FitOptions(torqueConstantNmPerA, false, 0, false, 0, Double.POSITIVE_INFINITY);
+        return velocity(Motion.ROTARY, torqueConstantNmPerA);
     }
 
-    /** Current → position, continuous model, no delay, the whole FRF. */
+    /** Rotary axis, current → position, continuous model, no delay, the whole FRF. */
     public static FitOptions position(double torqueConstantNmPerA) {
-        return new FitOptions(torqueConstantNmPerA, true, 0, false, 0, Double.POSITIVE_INFINITY);
+        return position(Motion.ROTARY, torqueConstantNmPerA);
     }
 
-    public FitOptions sampledAt(double sampleTimeS) { return new FitOptions(torqueConstantNmPerA, toPosition, sampleTimeS, fitDelay, fLowHz, fHighHz); }
+    /**
+     * Current → velocity, continuous model, no delay, the whole FRF, for a rotary or linear axis;
+     * {@code motorConstantPerA} in N·m/A (rotary) or N/A (linear).
+     */
+    public static FitOptions velocity(Motion motion, double motorConstantPerA) {
+        return new FitOptions(motorConstantPerA, false, 0, false, 0, Double.POSITIVE_INFINITY, motion);
+    }
 
-    public FitOptions withDelay() { return new FitOptions(torqueConstantNmPerA, toPosition, sampleTimeS, true, fLowHz, fHighHz); }
+    /** As {@link #velocity(Motion, double)}, to position (rad or m). */
+    public static FitOptions position(Motion motion, double motorConstantPerA) {
+        return new FitOptions(motorConstantPerA, true, 0, false, 0, Double.POSITIVE_INFINITY, motion);
+    }
 
-    public FitOptions bandHz(double lowHz, double highHz) { return new FitOptions(torqueConstantNmPerA, toPosition, sampleTimeS, fitDelay, lowHz, highHz); }
+    /** The motor constant: N·m/A on a rotary axis, N/A on a linear one ({@link Motion#motorConstantUnit()}). */
+    public double motorConstantPerA() { return torqueConstantNmPerA; }
+
+    public FitOptions sampledAt(double sampleTimeS) { return new FitOptions(torqueConstantNmPerA, toPosition, sampleTimeS, fitDelay, fLowHz, fHighHz, motion); }
+
+    public FitOptions withDelay() { return new FitOptions(torqueConstantNmPerA, toPosition, sampleTimeS, true, fLowHz, fHighHz, motion); }
+
+    public FitOptions bandHz(double lowHz, double highHz) { return new FitOptions(torqueConstantNmPerA, toPosition, sampleTimeS, fitDelay, lowHz, highHz, motion); }
 
     @Override public String toString() {
-        return String.format(Locale.ROOT, "fit current → %s, Kt = %.4g N·m/A, %s, %s, band %.4g .. %.4g Hz", toPosition ? "position" : "velocity",
-                torqueConstantNmPerA, sampleTimeS > 0 ? String.format(Locale.ROOT, "sampled-data (ZOH, T = %.4g µs)", sampleTimeS * 1e6) : "continuous",
-                fitDelay ? "delay fitted" : "no delay", fLowHz, fHighHz);
+        String constant = motion == Motion.ROTARY ? "Kt" : "Kf";
+        return String.format(Locale.ROOT, "fit current → %s, %s = %.4g %s, %s, %s, band %.4g .. %.4g Hz", toPosition ? "position" : "velocity",
+                constant, torqueConstantNmPerA, motion.motorConstantUnit(),
+                sampleTimeS > 0 ? String.format(Locale.ROOT, "sampled-data (ZOH, T = %.4g µs)", sampleTimeS * 1e6) : "continuous",
+                fitDelay ? "delay fitted" : "no delay", fLowHz, fHighHz)
+                + (motion == Motion.LINEAR ? ", linear axis" : "");
     }
 }

@@ -37,7 +37,11 @@ public final class ModelFit {
 
     enum Kind { RIGID, TWO_MASS }
 
-    /** Fits K<sub>t</sub>/(J s + b) (or /(J s² + b s) to position), optionally with delay. */
+    /**
+     * Fits K<sub>t</sub>/(J s + b) (or /(J s² + b s) to position), optionally with delay. The parameters are
+     * named and united by {@link FitOptions#motion()}: "inertia" in kg·m² and N·m·s/rad on a rotary axis,
+     * "mass" in kg and N·s/m on a linear one.
+     */
     public static RigidBodyFit rigidBody(Frf frf, FitOptions o) {
         Data d = Data.of(frf, o);
         double[] a = velocityMagnitudes(d, o);
@@ -48,10 +52,10 @@ public final class ModelFit {
         double[] start = o.fitDelay() ? new double[] {Math.log(j0), Math.log(b0), 0.1} : new double[] {Math.log(j0), Math.log(b0)};
         Solution s = solve(Kind.RIGID, d, o, List.of(start));
         double tau = o.fitDelay() ? Math.max(0, s.theta[2]) * DELAY_UNIT_S : 0;
-        RigidBodyParameters p = new RigidBodyParameters(Math.exp(s.theta[0]), Math.exp(s.theta[1]), tau);
+        RigidBodyParameters p = new RigidBodyParameters(Math.exp(s.theta[0]), Math.exp(s.theta[1]), tau, o.motion());
         List<ParameterEstimate> est = new ArrayList<>();
-        est.add(logParam("inertia", "kg·m²", s, 0));
-        est.add(logParam("viscous friction", "N·m·s/rad", s, 1));
+        est.add(logParam(o.motion().inertiaName(), o.motion().inertiaUnit(), s, 0));
+        est.add(logParam("viscous friction", o.motion().dampingUnit(), s, 1));
         if (o.fitDelay()) est.add(delayParam(s, 2));
         List<double[]> bands = decadeBands(d.fLow(), d.fHigh());
         FitResult fr = new FitResult(p.model(o.torqueConstantNmPerA(), o.toPosition()), est, quality(Kind.RIGID, d, o, s, bands, null), s.reducedChi2, d.n(), s.iterations);
@@ -93,10 +97,11 @@ public final class ModelFit {
         Solution s = solve(Kind.TWO_MASS, d, o, starts);
         double tau = o.fitDelay() ? Math.max(0, s.theta[6]) * DELAY_UNIT_S : 0;
         double[] t = s.theta;
-        TwoMassParameters p = new TwoMassParameters(Math.exp(t[0]), Math.exp(t[1]), Math.exp(t[2]), Math.exp(t[3]), Math.exp(t[4]), Math.exp(t[5]), tau);
+        TwoMassParameters p = new TwoMassParameters(Math.exp(t[0]), Math.exp(t[1]), Math.exp(t[2]), Math.exp(t[3]), Math.exp(t[4]), Math.exp(t[5]), tau,
+                o.motion());
         List<ParameterEstimate> est = new ArrayList<>();
-        est.add(logParam("inertia", "kg·m²", s, 0));
-        est.add(logParam("viscous friction", "N·m·s/rad", s, 1));
+        est.add(logParam(o.motion().inertiaName(), o.motion().inertiaUnit(), s, 0));
+        est.add(logParam("viscous friction", o.motion().dampingUnit(), s, 1));
         est.add(logParam("resonance", "Hz", s, 2));
         est.add(logParam("resonance damping", "", s, 3));
         est.add(logParam("antiresonance", "Hz", s, 4));
@@ -105,7 +110,7 @@ public final class ModelFit {
         double q = Math.pow(p.resonanceHz() / p.antiresonanceHz(), 2);
         double var = 4 * q * q * (s.cov[2][2] + s.cov[4][4] - 2 * s.cov[2][4]);
         double se = Math.sqrt(Math.max(0, var));
-        est.add(new ParameterEstimate("inertia ratio", "", p.inertiaRatio(), se, p.inertiaRatio() - Z95 * se, p.inertiaRatio() + Z95 * se));
+        est.add(new ParameterEstimate(o.motion().inertiaName() + " ratio", "", p.inertiaRatio(), se, p.inertiaRatio() - Z95 * se, p.inertiaRatio() + Z95 * se));
         if (o.fitDelay()) est.add(delayParam(s, 6));
         double fa = p.antiresonanceHz(), frHz = p.resonanceHz();
         List<double[]> bands = new ArrayList<>();

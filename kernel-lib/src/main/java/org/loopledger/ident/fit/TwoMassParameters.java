@@ -1,5 +1,6 @@
 package org.loopledger.ident.fit;
 
+import org.loopledger.lti.Motion;
 import org.loopledger.lti.TransferFunction;
 
 import java.util.Locale;
@@ -11,18 +12,30 @@ import java.util.Locale;
  * </pre>
  * (to position: one more 1/s). For an undamped coupling the inertia ratio is
  * R = J<sub>l</sub>/J<sub>m</sub> = (ω<sub>r</sub>/ω<sub>a</sub>)² - 1, J<sub>m</sub> = J/(1 + R), and the
- * stiffness k = J<sub>l</sub>ω<sub>a</sub>² (common practice for the two-mass model).
+ * stiffness k = J<sub>l</sub>ω<sub>a</sub>² (common practice for the two-mass model). On a {@link Motion#LINEAR}
+ * axis (a linear motor driving a compliantly coupled load) the same numbers are masses in kg, b in N·s/m,
+ * k in N/m, and the ratio is the mass ratio.
  *
- * @param inertiaKgM2       J, total inertia at the motor
- * @param viscousNmsPerRad  b
+ * @param inertiaKgM2       J, total inertia at the motor (kg·m²), or the total moving mass (kg) on a linear axis
+ * @param viscousNmsPerRad  b, in N·m·s/rad or N·s/m
  * @param resonanceHz       f<sub>r</sub> = ω<sub>r</sub>/2π
  * @param resonanceDamping  ζ<sub>r</sub>
  * @param antiresonanceHz   f<sub>a</sub> = ω<sub>a</sub>/2π
  * @param antiresonanceDamping ζ<sub>a</sub>
  * @param delayS            τ
+ * @param motion            which units the numbers are in
  */
 public record TwoMassParameters(double inertiaKgM2, double viscousNmsPerRad, double resonanceHz, double resonanceDamping,
-                                double antiresonanceHz, double antiresonanceDamping, double delayS) {
+                                double antiresonanceHz, double antiresonanceDamping, double delayS, Motion motion) {
+    public TwoMassParameters {
+        if (motion == null) throw new IllegalArgumentException("say whether the axis is Motion.ROTARY or Motion.LINEAR");
+    }
+
+    /** A rotary axis. */
+    public TwoMassParameters(double inertiaKgM2, double viscousNmsPerRad, double resonanceHz, double resonanceDamping,
+                             double antiresonanceHz, double antiresonanceDamping, double delayS) {
+        this(inertiaKgM2, viscousNmsPerRad, resonanceHz, resonanceDamping, antiresonanceHz, antiresonanceDamping, delayS, Motion.ROTARY);
+    }
 
     public double inertiaRatio() { return Math.pow(resonanceHz / antiresonanceHz, 2) - 1; }
 
@@ -30,14 +43,15 @@ public record TwoMassParameters(double inertiaKgM2, double viscousNmsPerRad, dou
 
     public double loadInertiaKgM2() { return inertiaKgM2 - motorInertiaKgM2(); }
 
+    /** k in N·m/rad, or N/m on a linear axis. */
     public double stiffnessNmPerRad() { return loadInertiaKgM2() * Math.pow(2 * Math.PI * antiresonanceHz, 2); }
 
     /** The same without delay. */
     public TwoMassParameters withoutDelay() {
-        return new TwoMassParameters(inertiaKgM2, viscousNmsPerRad, resonanceHz, resonanceDamping, antiresonanceHz, antiresonanceDamping, 0);
+        return new TwoMassParameters(inertiaKgM2, viscousNmsPerRad, resonanceHz, resonanceDamping, antiresonanceHz, antiresonanceDamping, 0, motion);
     }
 
-    /** The continuous model from current (A) to velocity (rad/s) or, with {@code toPosition}, to position (rad). */
+    /** The continuous model from current (A) to velocity (rad/s or m/s) or, with {@code toPosition}, to position (rad or m). */
     public TransferFunction model(double torqueConstantNmPerA, boolean toPosition) {
         double wa = 2 * Math.PI * antiresonanceHz, wr = 2 * Math.PI * resonanceHz;
         double[] num = {torqueConstantNmPerA / (wa * wa), torqueConstantNmPerA * 2 * antiresonanceDamping / wa, torqueConstantNmPerA};
@@ -48,8 +62,8 @@ public record TwoMassParameters(double inertiaKgM2, double viscousNmsPerRad, dou
     }
 
     @Override public String toString() {
-        return String.format(Locale.ROOT, "two-mass: J = %.5g kg·m², b = %.4g N·m·s/rad, resonance %.5g Hz (ζ %.4g), antiresonance %.5g Hz (ζ %.4g), "
-                        + "inertia ratio %.4g, delay %.4g µs", inertiaKgM2, viscousNmsPerRad, resonanceHz, resonanceDamping, antiresonanceHz,
-                antiresonanceDamping, inertiaRatio(), delayS * 1e6);
+        return String.format(Locale.ROOT, "two-mass: %s = %.5g %s, b = %.4g %s, resonance %.5g Hz (ζ %.4g), antiresonance %.5g Hz (ζ %.4g), "
+                        + "%s ratio %.4g, delay %.4g µs", motion.inertiaSymbol(), inertiaKgM2, motion.inertiaUnit(), viscousNmsPerRad, motion.dampingUnit(),
+                resonanceHz, resonanceDamping, antiresonanceHz, antiresonanceDamping, motion.inertiaName(), inertiaRatio(), delayS * 1e6);
     }
 }

@@ -17,6 +17,17 @@ import java.util.Locale;
  * 1999, section 13.5, from memory). The naive u → y H1, S<sub>uy</sub>/S<sub>uu</sub>, is kept for
  * comparison: under feedback it tends to -1/C wherever v dominates, since the loop makes u depend on v.
  *
+ * <p><b>The position reference as the external signal.</b> Many records hold no injected current, only a
+ * cascade following a position reference r<sub>x</sub> (a back-and-forth move, a periodic test profile). The
+ * plant estimate needs nothing but an external signal that reaches u and is uncorrelated with the loop's
+ * noise: with y = P·u + v and S<sub>rv</sub> = 0, S<sub>ry</sub> = P·S<sub>ru</sub> for an r entering anywhere in the
+ * loop (derivation by hand), so call {@link #welch} with the position reference as {@code r}, the current
+ * as {@code u} and the measured velocity as {@code y}: {@link #plant()} is then the current-to-velocity plant
+ * again, while {@link #sensitivity()} and {@link #processSensitivity()} become the closed-loop responses from
+ * the position reference to current and to velocity (not S and PS). The estimate holds only where the
+ * reference has energy: a smooth move profile excites little above its first few harmonics, so check the
+ * coherence, and prefer a periodic reference with {@link PeriodicAverage} (period by {@link PeriodDetection}).
+ *
  * <p>Uncertainty of P̂ by first-order perturbation (derivation by hand): P̂ - P ≈ S<sub>re</sub>/S<sub>ru</sub>
  * with e = y - P·u = v, so σ<sub>P</sub>² = S<sub>rr</sub>·S<sub>ee</sub>/(n<sub>eff</sub>·|S<sub>ru</sub>|²),
  * S<sub>ee</sub> = S<sub>yy</sub> - 2·Re(P̂·conj(S<sub>uy</sub>)) + |P̂|²·S<sub>uu</sub>. The coherence given

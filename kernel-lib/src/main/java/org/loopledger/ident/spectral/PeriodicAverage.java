@@ -21,11 +21,26 @@ import java.util.Locale;
  * / (Σ|R<sub>m</sub>|²·Σ|Y<sub>m</sub>|²) between the excitation r and the output, i.e. the share of the
  * output power that the excitation explains.
  *
+ * <p><b>One period is enough</b> for the FRF: on a steady-state periodic record the DFT of a single period is
+ * leakage-free on every line, so Ĝ = Y/U on the excited lines; only the period-to-period noise estimate,
+ * the uncertainty and the coherence need two periods or more (with one period the {@link Frf} carries neither).
+ * The lines the excitation does not excite hold the noise and nonlinear-distortion floor instead
+ * ({@link #floor}).
+ *
+ * <p><b>Excited lines</b> are detected from the excitation's own spectrum ({@link #excitedLines}): the lines
+ * above the first drop of 20 dB or more in its line powers sorted from the strongest down (so an odd
+ * multisine read back from a log, with a small quantisation or noise floor on its even lines, excites only
+ * its odd lines), and never below {@link #EXCITED_FRACTION} of the strongest line. An excitation designed
+ * with a band more than 20 dB below its strongest lines and a gap between them would lose that band; design
+ * excitations with levels within 20 dB, as usual.
+ *
  * <p>Spectra are kept as unscaled DFT sums (the scale cancels in every ratio).
  */
 public final class PeriodicAverage {
     /** Lines whose excitation power is below this fraction of the strongest line count as not excited. */
     public static final double EXCITED_FRACTION = 1e-10;
+    /** A drop of at least this power ratio (20 dB) between neighbouring sorted line powers separates excited from quiet lines. */
+    public static final double EXCITED_GAP = 100;
 
     private final double fs;
     private final int period;
@@ -52,7 +67,7 @@ public final class PeriodicAverage {
     /**
      * Averages channels (not modified; same length) over whole periods of {@code periodSamples}, after
      * dropping {@code skipPeriods} leading periods (transient). Samples past the last whole period are ignored.
-     * Needs at least two averaged periods for the noise estimate.
+     * One period suffices for the FRF and the floor; the noise estimate, uncertainty and coherence need two.
      */
     public static PeriodicAverage of(double sampleRateHz, int periodSamples, int skipPeriods, double[]... x) {
         if (!(sampleRateHz > 0) || Double.isInfinite(sampleRateHz)) throw new IllegalArgumentException("sample rate must be finite and positive, got " + sampleRateHz + " Hz");
@@ -67,9 +82,9 @@ public final class PeriodicAverage {
             }
         }
         int m = n / periodSamples - skipPeriods;
-        if (m < 2) {
+        if (m < 1) {
             throw new IllegalArgumentException("record of " + n + " samples holds " + (n / periodSamples) + " whole period(s) of " + periodSamples
-                    + " samples; after skipping " + skipPeriods + " at least 2 must remain for averaging and a noise estimate; record longer");
+                    + " samples; after skipping " + skipPeriods + " at least 1 must remain; record longer or skip fewer periods");
         }
         int ch = x.length, lines = periodSamples / 2;
         DoubleFFT_1D fft = new DoubleFFT_1D(periodSamples);
@@ -94,7 +109,7 @@ public final class PeriodicAverage {
             }
         }
         double[][][] cr = new double[ch][ch][lines], ci = new double[ch][ch][lines], sr = new double[ch][ch][lines], si = new double[ch][ch][lines];
-        double norm = 1.0 / ((double) m * (m - 1));
+        double norm = m >= 2 ? 1.0 / ((double) m * (m - 1)) : Double.NaN; // one period: no scatter to estimate
         for (int i = 0; i < ch; i++) {
             for (int j = 0; j < ch; j++) {
                 for (int k = 0; k < lines; k++) {
@@ -120,6 +135,9 @@ public final class PeriodicAverage {
 
     public int averagedPeriods() { return periods; }
 
+    /** Whether two or more periods were averaged, so that period-to-period noise, uncertainty and coherence exist. */
+    public boolean hasNoiseEstimate() { return periods >= 2; }
+
     public int skippedPeriods() { return skipped; }
 
     public int periodSamples() { return period; }
@@ -140,6 +158,7 @@ public final class PeriodicAverage {
 
     /** Period-to-period noise estimate: the standard deviation of the mean spectrum of a channel (copy). */
     public double[] noiseStd(int c) {
+        requireNoiseEstimate("a period-to-period noise estimate");
         double[] s = new double[meanRe[c].length];
         for (int k = 0; k < s.length; k++) s[k] = Math.sqrt(Math.max(0, covRe[c][c][k]));
         return s;
@@ -148,16 +167,42 @@ public final class PeriodicAverage {
     /** Which lines the excitation channel excites (power above {@link #EXCITED_FRACTION} of its strongest line). */
     public boolean[] excitedLines(int excitation) {
         int lines = meanRe[excitation].length;
+        double[] p = new double[lines];
+        for (int k = 0; k < lines; k++) p[k] = power(excitation, k);
+        return excited(p);
+    }
+
+    /** The rule of the class comment on line powers (not modified). */
+    static boolean[] excited(double[] power) {
+        int lines = power.length;
         double peak = 0;
-        for (int k = 0; k < lines; k++) peak = Math.max(peak, power(excitation, k));
+        for (double v : power) peak = Math.max(peak, v);
         boolean[] e = new boolean[lines];
-        for (int k = 0; k < lines; k++) e[k] = peak > 0 && power(excitation, k) > EXCITED_FRACTION * peak;
+        if (!(peak > 0)) return e;
+        double[] sorted = power.clone();
+        java.util.Arrays.sort(sorted);
+        double threshold = EXCITED_FRACTION * peak;
+        for (int i = sorted.length - 1; i > 0; i--) {
+            if (!(sorted[i - 1] > threshold)) break;
+            if (sorted[i] > EXCITED_GAP * sorted[i - 1]) { threshold = sorted[i - 1]; break; }
+        }
+        for (int k = 0; k < lines; k++) e[k] = power[k] > threshold;
         return e;
+    }
+
+    private void requireNoiseEstimate(String what) {
+        if (periods < 2) {
+            throw new IllegalArgumentException(what + " needs at least 2 averaged periods, this record has " + periods
+                    + "; record more periods (or skip fewer), or use the floor of the non-excited lines (floor(...)) as the noise level");
+        }
     }
 
     private double power(int c, int k) { return meanRe[c][k] * meanRe[c][k] + meanIm[c][k] * meanIm[c][k]; }
 
-    /** Ȳ/Ū from channel {@code in} to {@code out} on all lines excited by {@code excitation}, with uncertainty and coherence. */
+    /**
+     * Ȳ/Ū from channel {@code in} to {@code out} on all lines excited by {@code excitation}, with uncertainty and
+     * coherence when two or more periods were averaged (without them for a single period).
+     */
     public Frf frf(int in, int out, int excitation) {
         return frf(in, out, excitation, 0, Double.POSITIVE_INFINITY);
     }
@@ -204,7 +249,59 @@ public final class PeriodicAverage {
             coh[j] = srr > 0 && syy > 0 ? Math.min(1, (sxr * sxr + sxi * sxi) / (srr * syy)) : 0;
             j++;
         }
-        return Frf.ofPartsHz(f, gr, gi).withCoherence(coh).withUncertainty(sig);
+        Frf g = Frf.ofPartsHz(f, gr, gi);
+        return periods >= 2 ? g.withCoherence(coh).withUncertainty(sig) : g;
+    }
+
+    /**
+     * The floor of channel {@code channel} on the lines that {@code excitation} does not excite, per decade band
+     * (edges at the powers of ten between the first line and fs/2); see {@link LineFloor}.
+     */
+    public LineFloor floor(int excitation, int channel) {
+        double lo = fs / period, hi = (meanRe[0].length) * fs / period;
+        java.util.List<Double> edges = new java.util.ArrayList<>();
+        edges.add(lo);
+        for (double e = Math.pow(10, Math.floor(Math.log10(lo)) + 1); e < hi; e *= 10) edges.add(e);
+        edges.add(hi);
+        return floor(excitation, channel, edges.stream().mapToDouble(Double::doubleValue).toArray());
+    }
+
+    /**
+     * As {@link #floor(int, int)}, in the bands between consecutive {@code bandEdgesHz} (increasing; not modified);
+     * bands without both excited and non-excited lines are left out.
+     */
+    public LineFloor floor(int excitation, int channel, double... bandEdgesHz) {
+        if (bandEdgesHz.length < 2) throw new IllegalArgumentException("give at least two band edges in Hz, got " + bandEdgesHz.length);
+        for (int i = 1; i < bandEdgesHz.length; i++) {
+            if (!(bandEdgesHz[i] > bandEdgesHz[i - 1])) {
+                throw new IllegalArgumentException("band edges must increase: edge " + i + " (" + bandEdgesHz[i] + " Hz) is not above edge " + (i - 1)
+                        + " (" + bandEdgesHz[i - 1] + " Hz)");
+            }
+        }
+        boolean[] exc = excitedLines(excitation);
+        double[] f = frequencyHz();
+        int top = f.length;
+        if (period % 2 == 0) top--; // the Nyquist line of an even period is real-only: leave it out
+        java.util.List<LineFloor.Band> bands = new java.util.ArrayList<>();
+        for (int b = 0; b + 1 < bandEdgesHz.length; b++) {
+            double lo = bandEdgesHz[b], hi = bandEdgesHz[b + 1];
+            boolean last = b + 2 == bandEdgesHz.length;
+            int ne = 0, nq = 0, nAll = 0;
+            double pe = 0, pq = 0, var = 0;
+            for (int k = 0; k < top; k++) {
+                if (f[k] < lo || (last ? f[k] > hi * (1 + 1e-12) : f[k] >= hi)) continue;
+                double pw = power(channel, k);
+                if (exc[k]) { ne++; pe += pw; } else { nq++; pq += pw; }
+                nAll++;
+                if (periods >= 2) var += covRe[channel][channel][k];
+            }
+            if (ne == 0 || nq == 0 || !(pe > 0)) continue;
+            double ref = pe / ne;
+            double floorDb = 10 * Math.log10(Math.max(pq / nq, Double.MIN_NORMAL) / ref);
+            double noiseDb = periods >= 2 ? 10 * Math.log10(Math.max(var / nAll, Double.MIN_NORMAL) / ref) : Double.NaN;
+            bands.add(new LineFloor.Band(lo, hi, ne, nq, floorDb, noiseDb));
+        }
+        return new LineFloor(channel, periods, bands);
     }
 
     @Override public String toString() {

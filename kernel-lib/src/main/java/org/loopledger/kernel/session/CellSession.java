@@ -231,6 +231,30 @@ public final class CellSession implements AutoCloseable {
         }
     }
 
+    /**
+     * The datasets read by this session's cells (see {@link org.loopledger.provenance.Provenance#datasetsJson()}),
+     * asked of the agent over its command stream rather than through a snippet's standard output, which
+     * a cell may have redirected. Call between cells.
+     *
+     * @throws IllegalStateException when the agent cannot answer
+     */
+    public String provenanceJson() {
+        try {
+            return agent.provenanceJson();
+        } catch (jdk.jshell.spi.ExecutionControl.ExecutionControlException e) {
+            throw new IllegalStateException("the session could not report the datasets it read: " + e.getMessage(), e);
+        }
+    }
+
+    /**
+     * Ends the agent JVM at once, for a cell that ignores {@link #interrupt()}; the running
+     * {@link #execute} then returns with an error and a fresh session starts. Thread-safe.
+     */
+    public void killAgent() {
+        AgentConnection a = agent;
+        if (a != null) a.kill();
+    }
+
     /** Ends the agent JVM and starts a new session with the preloaded imports. */
     public void restart() {
         restartQuietly();

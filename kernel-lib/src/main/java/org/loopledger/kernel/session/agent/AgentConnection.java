@@ -49,6 +49,12 @@ public final class AgentConnection {
         control.extensionCommand(AgentControl.FORGET_LAST, null);
     }
 
+    /** The datasets the agent's cells read, as {@link org.loopledger.provenance.Provenance#datasetsJson()} JSON. */
+    public String provenanceJson() throws ExecutionControl.ExecutionControlException {
+        Object r = control.extensionCommand(AgentControl.PROVENANCE, null);
+        return r instanceof String s ? s : "[]";
+    }
+
     void close() {
         try {
             stopSocket.close();
@@ -58,7 +64,8 @@ public final class AgentConnection {
         process.destroy();
     }
 
-    void kill() {
+    /** Ends the agent JVM at once (SIGKILL); a running cell then ends with an error. */
+    public void kill() {
         process.destroyForcibly();
     }
 }

@@ -16,12 +16,16 @@ import java.util.Map;
  *   <li>stopping the snippet's thread even in a tight loop ({@link #stopClientCode}), and</li>
  *   <li>the extension command {@value #RENDER_LAST}, which renders the value of the last variable whose
  *       value JShell asked for as a MIME bundle (JSON) with {@link Bundles#json}, so rich values
- *       never cross the JVM boundary and no second snippet needs compiling.</li>
+ *       never cross the JVM boundary and no second snippet needs compiling, and</li>
+ *   <li>the extension command {@value #PROVENANCE}, the datasets the session read (as JSON), so the
+ *       runner learns them even when a cell has replaced {@code System.out}.</li>
  * </ul>
  */
 final class AgentControl extends DirectExecutionControl {
     static final String RENDER_LAST = "loopledger.renderLast";
     static final String FORGET_LAST = "loopledger.forgetLast";
+    /** Answers {@link org.loopledger.provenance.Provenance#datasetsJson()}: on the command stream, which a cell cannot redirect. */
+    static final String PROVENANCE = "loopledger.provenance";
 
     private final Object lock = new Object();
     private Thread clientThread;
@@ -126,6 +130,7 @@ final class AgentControl extends DirectExecutionControl {
             hasLastValue = false;
             return null;
         }
+        if (PROVENANCE.equals(command)) return org.loopledger.provenance.Provenance.datasetsJson();
         if (!RENDER_LAST.equals(command)) return super.extensionCommand(command, arg);
         if (!hasLastValue) return null;
         Object value = lastValue;
