@@ -12,7 +12,7 @@ import picocli.CommandLine.Command;
 @Command(name = "loopledger", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class,
         description = "Servo loop design: Jupyter kernel and tools.",
         subcommands = {RunCommand.class, VerifyCommand.class, RenderCommand.class, DatasetsCommand.class, KernelCommand.class, InstallCommand.class,
-                BenchCommand.class})
+                BenchCommand.class, ConvertCommand.class})
 public final class Main implements Runnable {
     @CommandLine.Spec
     CommandLine.Model.CommandSpec spec;

@@ -2,7 +2,6 @@ package org.loopledger.cli;
 
 import org.loopledger.notebook.AtomicFiles;
 import org.loopledger.notebook.Notebook;
-import org.loopledger.notebook.NotebookJson;
 import org.loopledger.notebook.NotebookRunner;
 import org.loopledger.notebook.RecordRenderer;
 import picocli.CommandLine.Command;
@@ -19,7 +18,7 @@ import java.util.concurrent.Callable;
         exitCodeListHeading = "Exit status:%n",
         exitCodeList = {"0:the record was written", "2:bad usage or input: nothing was written"})
 final class RenderCommand implements Callable<Integer> {
-    @Parameters(index = "0", paramLabel = "NOTEBOOK", description = "a notebook executed by 'loopledger run'")
+    @Parameters(index = "0", paramLabel = "NOTEBOOK", description = "a notebook executed by 'loopledger run' (.ipynb), or a plain-text notebook (.java) with its executed NAME.ipynb beside it")
     Path notebook;
 
     @Option(names = {"-o", "--output"}, paramLabel = "RECORD.html", description = "output file (default: NAME.html beside the notebook)")
@@ -28,7 +27,7 @@ final class RenderCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         try {
-            Notebook nb = NotebookJson.read(notebook);
+            Notebook nb = NotebookFiles.executed(notebook, "render");
             Path target = output != null ? output : NotebookFiles.sibling(notebook, ".html");
             OutputTargets.check(target, OutputTargets.Kind.HTML, output != null ? "-o" : "the output", false, notebook);
             var info = NotebookRunner.recordInfo(nb, notebook.getFileName().toString(), System.getProperty("java.version"));

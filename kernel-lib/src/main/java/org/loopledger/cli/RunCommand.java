@@ -2,6 +2,7 @@ package org.loopledger.cli;
 
 import org.loopledger.notebook.AtomicFiles;
 import org.loopledger.notebook.Notebook;
+import org.loopledger.notebook.NotebookFile;
 import org.loopledger.notebook.NotebookJson;
 import org.loopledger.notebook.NotebookRunner;
 import org.loopledger.notebook.RecordRenderer;
@@ -28,7 +29,7 @@ final class RunCommand implements Callable<Integer> {
     /** Exit status of a run with {@code --allow-errors} in which some cells failed. */
     static final int EXIT_CELLS_FAILED = 3;
 
-    @Parameters(index = "0", paramLabel = "NOTEBOOK", description = "nbformat 4 notebook (.ipynb) written for the Loopledger kernel")
+    @Parameters(index = "0", paramLabel = "NOTEBOOK", description = "nbformat 4 notebook (.ipynb) written for the Loopledger kernel, or its plain-text form (.java)")
     Path notebook;
 
     @Option(names = {"-o", "--output"}, paramLabel = "OUT.ipynb", description = "where to write the executed notebook (default: NAME.out.ipynb beside the input)")
@@ -50,8 +51,16 @@ final class RunCommand implements Callable<Integer> {
     public Integer call() {
         Notebook nb;
         try {
-            nb = NotebookJson.read(notebook);
+            nb = NotebookFile.read(notebook);
             if (inPlace && output != null) throw new IllegalArgumentException("give either -o OUT.ipynb or --in-place, not both");
+            if (inPlace && NotebookFile.isPlainText(notebook)) {
+                throw new IllegalArgumentException(notebook + " is a plain-text notebook, which holds no outputs; write the executed notebook with -o "
+                        + NotebookFiles.sibling(notebook, ".ipynb").getFileName() + " (or leave -o out for " + NotebookFiles.sibling(notebook, ".out.ipynb").getFileName() + ")");
+            }
+            if (output != null && NotebookFile.isPlainText(output)) {
+                throw new IllegalArgumentException("-o " + output + ": run writes an executed notebook (.ipynb); the plain-text form holds no outputs "
+                        + "(make one with './loopledger convert')");
+            }
             Path target = inPlace ? notebook : output != null ? output : NotebookFiles.sibling(notebook, ".out.ipynb");
             String targetOption = inPlace ? "--in-place" : output != null ? "-o" : "the output";
             OutputTargets.check(target, OutputTargets.Kind.NOTEBOOK, targetOption, inPlace, notebook);

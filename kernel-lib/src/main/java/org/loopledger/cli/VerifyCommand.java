@@ -2,7 +2,6 @@ package org.loopledger.cli;
 
 import org.loopledger.notebook.DatasetCheck;
 import org.loopledger.notebook.Notebook;
-import org.loopledger.notebook.NotebookJson;
 import org.loopledger.notebook.NotebookRunner;
 import org.loopledger.notebook.OutputComparison;
 import org.loopledger.notebook.RecordInfo;
@@ -24,7 +23,7 @@ import java.util.concurrent.Callable;
                 "1:an output differs, a dataset differs from the record, or a cell failed or ran out of time",
                 "2:bad usage or input: nothing was run"})
 final class VerifyCommand implements Callable<Integer> {
-    @Parameters(index = "0", paramLabel = "NOTEBOOK", description = "an executed notebook (.ipynb)")
+    @Parameters(index = "0", paramLabel = "NOTEBOOK", description = "an executed notebook (.ipynb), or a plain-text notebook (.java) with its executed NAME.ipynb beside it")
     Path notebook;
 
     @Option(names = "--rtol", paramLabel = "R", defaultValue = "1e-6", description = "relative tolerance for numbers (default ${DEFAULT-VALUE})")
@@ -39,7 +38,7 @@ final class VerifyCommand implements Callable<Integer> {
     @Override
     public Integer call() {
         try {
-            Notebook stored = NotebookJson.read(notebook);
+            Notebook stored = NotebookFiles.executed(notebook, "verify");
             OutputComparison cmp = OutputComparison.withTolerance(rtol, atol);
             if (stored.codeCells().stream().allMatch(c -> c.executionCount() == null)) {
                 throw new IllegalArgumentException(notebook + " has no stored outputs to compare; run it first with './loopledger run " + notebook + " --in-place'");
