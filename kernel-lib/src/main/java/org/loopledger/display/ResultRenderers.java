@@ -11,6 +11,7 @@ import org.loopledger.lti.Units;
 import org.loopledger.sim.Excitation;
 import org.loopledger.sim.ResponseMetrics;
 import org.loopledger.tune.LoadCaseFigures;
+import org.loopledger.tune.TargetCheck;
 import org.loopledger.tune.TuningResult;
 
 import java.util.Locale;
@@ -89,6 +90,15 @@ public final class ResultRenderers {
         StringBuilder h = new StringBuilder("<div class=\"loopledger-tuning\">");
         h.append("<p><strong>").append(r.specMet() ? "Spec met" : "Spec NOT met").append("</strong>; binding constraint: ")
                 .append(HtmlEscape.escape(r.bindingConstraint())).append("</p>");
+        if (!r.targets().isEmpty()) {
+            HtmlTable t = HtmlTable.of("Targets stated in the spec (worst load case, independent re-analysis)", "Target", "Asked (Hz)", "Achieved (Hz)",
+                    "Load case", "Result");
+            for (TargetCheck c : r.targets()) {
+                t.row(c.kind().label(), Figures.num(c.askedHz()), Double.isNaN(c.achievedHz()) ? "none in band" : Figures.num(c.achievedHz()),
+                        c.loadCase(), c.met() ? "met" : "MISSED: " + c.describe());
+            }
+            t.appendTo(h);
+        }
         HtmlTable g = HtmlTable.of("Gains", "Parameter", "Value", "Unit");
         g.row("Position gain Kp", Figures.num(r.piv().positionGainPerS()), "1/s");
         g.row("Velocity gain Kv", Figures.num(r.piv().velocity().velocityGain()), "plant-input units per rad/s");

@@ -81,7 +81,7 @@ class ResultRenderersTest {
     void tuningResultListsGainsAndEveryLoadCase() {
         Margins v = Margins.of(MarginsRendererTest.CUBIC_LAG), p = Margins.of(MarginsRendererTest.CONDITIONAL);
         TuningResult r = new TuningResult(Piv.of(50, 0.3, 20), FilterChain.of(LowPass1.ofHz(1000)), DriveTiming.continuous(), TuningSpec.defaults(),
-                List.of(new LoadCaseFigures("empty <carriage>", v, v, p)), true, "phase margin", List.of("step <1>"), 1234, 5.0);
+                List.of(new LoadCaseFigures("empty <carriage>", v, v, p)), true, List.of(), "phase margin", List.of("step <1>"), 1234, 5.0);
         MimeBundle b = Bundles.of(r);
         String html = b.get(MimeBundle.TEXT_HTML).orElseThrow();
         assertTrue(html.contains("empty &lt;carriage&gt;") && html.contains("step &lt;1&gt;"), "escaped");
