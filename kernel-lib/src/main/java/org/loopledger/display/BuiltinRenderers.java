@@ -20,5 +20,6 @@ final class BuiltinRenderers {
         r.register(org.loopledger.ident.fit.FitResult.class, ResultRenderers::fit);
         r.register(org.loopledger.sim.ResponseMetrics.class, ResultRenderers::response);
         r.register(org.loopledger.tune.TuningResult.class, ResultRenderers::tuning);
+        r.register(org.loopledger.tune.Resonance.class, ResultRenderers::resonance);
     }
 }

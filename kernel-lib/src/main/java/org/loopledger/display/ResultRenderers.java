@@ -11,6 +11,8 @@ import org.loopledger.lti.Units;
 import org.loopledger.sim.Excitation;
 import org.loopledger.sim.ResponseMetrics;
 import org.loopledger.tune.LoadCaseFigures;
+import org.loopledger.tune.Resonance;
+import org.loopledger.tune.ResonanceWarning;
 import org.loopledger.tune.TargetCheck;
 import org.loopledger.tune.TuningResult;
 
@@ -118,6 +120,24 @@ public final class ResultRenderers {
             h.append("</ol>");
         }
         h.append("<p>").append(r.evaluations()).append(" loop evaluations</p>");
+        return html(r.toString(), h.append("</div>").toString());
+    }
+
+    /** A found resonance: frequency, prominence, half-power width, damping estimate, and any warning about its resolution. */
+    public static MimeBundle resonance(Resonance r) {
+        StringBuilder h = new StringBuilder("<div class=\"loopledger-resonance\">");
+        HtmlTable t = HtmlTable.of("Resonance" + (r.dampingResolved() ? "" : " (damping NOT resolved)"), "Frequency (Hz)", "Above rigid-body trend (dB)",
+                "Half-power width (Hz)", "Damping estimate");
+        t.row(Figures.num(r.frequencyHz()), Figures.num(r.prominenceDb()), Figures.num(r.halfPowerWidthHz()),
+                r.dampingResolved() ? Figures.num(r.dampingEstimate()) : Figures.num(r.dampingEstimate()) + " (not resolved)");
+        t.appendTo(h);
+        if (!r.warnings().isEmpty()) {
+            h.append("<ul class=\"loopledger-warnings\">");
+            for (ResonanceWarning w : r.warnings()) {
+                h.append("<li><strong>").append(HtmlEscape.escape(w.kind().name())).append("</strong>: ").append(HtmlEscape.escape(w.message())).append("</li>");
+            }
+            h.append("</ul>");
+        }
         return html(r.toString(), h.append("</div>").toString());
     }
 

@@ -1,6 +1,7 @@
 package org.loopledger.tune;
 
 import org.loopledger.frf.Frf;
+import org.loopledger.lti.Units;
 
 import java.util.ArrayList;
 import java.util.Comparator;
@@ -14,9 +15,15 @@ import java.util.List;
  * each point). A peak counts when it stands at least {@code minProminenceDb} above that trend. Its
  * half-power width is read where the curve falls 3 dB below the peak on both sides, and the damping is
  * estimated as ζ ≈ Δf/(2f) (half-power bandwidth method; common practice, e.g. Ewins, Modal Testing,
- * 2nd ed., §4.3, from memory).
+ * 2nd ed., §4.3, from memory). The method needs the peak resolved by the grid: when the half-power width
+ * is narrower than the frequency spacing at the peak, or fewer than three points lie above the half-power
+ * level, the resonance carries a {@link ResonanceWarning.Kind#DAMPING_NOT_RESOLVED} warning (the sampled top
+ * sits below the true one, so the width and damping are artefacts of the grid).
  */
 public final class Resonances {
+    /** Points above the half-power level for the peak to count as resolved (common practice: a few points across the peak). */
+    static final int MIN_POINTS_ABOVE_HALF_POWER = 3;
+
     private Resonances() {}
 
     /** Resonances standing at least {@code minProminenceDb} (&gt; 0) above the rigid-body trend, strongest first. */
@@ -40,7 +47,18 @@ public final class Resonances {
             double fa = interpolateHz(w, y, a, a + 1, y[i] - 3), fb = interpolateHz(w, y, b - 1, b, y[i] - 3);
             double f = w[i] / (2 * Math.PI);
             double width = fb - fa;
-            out.add(new Resonance(f, prom, width, width / (2 * f)));
+            double spacingHz = Math.max(w[i + 1] - w[i], w[i] - w[i - 1]) / (2 * Math.PI);
+            int above = b - a - 1;
+            List<ResonanceWarning> warnings = new ArrayList<>();
+            if (width < spacingHz || above < MIN_POINTS_ABOVE_HALF_POWER) {
+                warnings.add(new ResonanceWarning(ResonanceWarning.Kind.DAMPING_NOT_RESOLVED, f, String.format(java.util.Locale.ROOT,
+                        "damping not resolved at %s: the half-power width %s spans %d grid point%s (spacing %s there); the peak's height, width "
+                                + "and damping ≈ %s are set by the grid, not the mechanics. Measure with a finer frequency resolution near %s "
+                                + "(a spacing below %s, i.e. a longer period or record)", Units.formatHz(f), Units.formatHz(width), above,
+                        above == 1 ? "" : "s", Units.formatHz(spacingHz), Units.g4(width / (2 * f)), Units.formatHz(f),
+                        Units.formatHz(Math.max(width, 0) / MIN_POINTS_ABOVE_HALF_POWER))));
+            }
+            out.add(new Resonance(f, prom, width, width / (2 * f), warnings));
         }
         out.sort(Comparator.comparingDouble(Resonance::prominenceDb).reversed());
         return out;

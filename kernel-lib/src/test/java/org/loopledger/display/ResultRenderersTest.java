@@ -14,6 +14,8 @@ import org.loopledger.ident.fit.ParameterEstimate;
 import org.loopledger.sim.Excitation;
 import org.loopledger.sim.ResponseMetrics;
 import org.loopledger.tune.LoadCaseFigures;
+import org.loopledger.tune.Resonance;
+import org.loopledger.tune.ResonanceWarning;
 import org.loopledger.tune.TuningResult;
 import org.loopledger.tune.TuningSpec;
 
@@ -94,5 +96,29 @@ class ResultRenderersTest {
         assertEquals(List.of("0.122", "67.6", "12.04"), c.subList(1, 4));
         assertEquals(List.of("0.3755", "44.06"), c.subList(7, 9));
         assertEquals(r.toString(), b.plainText());
+    }
+
+    @Test
+    void aMissedTargetAndAnUnresolvedResonanceShowInTheirDisplays() {
+        Margins v = Margins.of(MarginsRendererTest.CUBIC_LAG), p = Margins.of(MarginsRendererTest.CONDITIONAL);
+        List<LoadCaseFigures> cases = List.of(new LoadCaseFigures("heavy", v, v, p));
+        // position loop 2(s+1)^2/s^3 crosses at 0.3755 Hz (by hand, see above); 20 Hz was asked
+        TuningSpec spec = TuningSpec.builder().positionBandwidthHz(20).build();
+        TuningResult r = new TuningResult(Piv.of(50, 0.3, 20), FilterChain.none(), DriveTiming.continuous(), spec, cases, true,
+                TuningResult.targetChecks(spec, cases), "phase margin", List.of(), 1, 1.0);
+        MimeBundle b = Bundles.of(r);
+        assertTrue(b.plainText().startsWith("Spec NOT met: position bandwidth 0.3755 Hz of the 20 Hz asked (98.1 % short)"), b.plainText());
+        Document d = Jsoup.parse(b.get(MimeBundle.TEXT_HTML).orElseThrow());
+        assertTrue(d.select("p").first().text().startsWith("Spec NOT met"), d.text());
+        List<String> row = row(d, "position bandwidth");
+        assertEquals(List.of("position bandwidth", "20", "0.3755"), row.subList(0, 3)); // (eachText skips the empty load-case cell)
+        assertTrue(row.get(row.size() - 1).startsWith("MISSED: position bandwidth 0.3755 Hz of the 20 Hz asked"), row.toString());
+
+        Resonance res = new Resonance(400, 12, 0.8, 0.001, List.of(new ResonanceWarning(ResonanceWarning.Kind.DAMPING_NOT_RESOLVED, 400, "damping <not> resolved")));
+        MimeBundle rb = Bundles.of(res);
+        assertTrue(rb.plainText().contains("warning: damping <not> resolved"), rb.plainText());
+        String html = rb.get(MimeBundle.TEXT_HTML).orElseThrow();
+        assertTrue(html.contains("damping &lt;not&gt; resolved") && html.contains("DAMPING_NOT_RESOLVED"), html);
+        assertEquals(List.of("400", "12", "0.8", "0.001 (not resolved)"), Jsoup.parse(html).select("tr").get(1).select("td").eachText());
     }
 }
