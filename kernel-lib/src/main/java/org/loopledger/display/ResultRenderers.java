@@ -6,6 +6,9 @@ import org.loopledger.control.CoefficientTable;
 import org.loopledger.control.Filter;
 import org.loopledger.ident.fit.BandQuality;
 import org.loopledger.ident.fit.FitResult;
+import org.loopledger.ident.fit.FitWarning;
+import org.loopledger.ident.fit.RigidBodyFit;
+import org.loopledger.ident.fit.TwoMassFit;
 import org.loopledger.ident.fit.ParameterEstimate;
 import org.loopledger.lti.Units;
 import org.loopledger.sim.Excitation;
@@ -43,9 +46,35 @@ public final class ResultRenderers {
 
     private static String digits15(double v) { return String.format(Locale.ROOT, "%+.15e", v); }
 
-    /** Fitted parameters (value, unit, standard error, 95 % interval) and the fit quality per band. */
+    /** Fitted parameters (value, unit, standard error, 95 % interval), the fit quality per band, and the usability verdict with its warnings. */
     public static MimeBundle fit(FitResult r) {
+        return html(r.toString(), fitHtml(r));
+    }
+
+    /** A two-mass fit: the estimate in words, then the fit's tables. */
+    public static MimeBundle twoMassFit(TwoMassFit f) {
+        return html(f.toString(), "<p>" + HtmlEscape.escape(f.estimate().toString()) + "</p>" + fitHtml(f.fit()));
+    }
+
+    /** A rigid-body fit: the estimate in words, then the fit's tables. */
+    public static MimeBundle rigidBodyFit(RigidBodyFit f) {
+        return html(f.toString(), "<p>" + HtmlEscape.escape(f.estimate().toString()) + "</p>" + fitHtml(f.fit()));
+    }
+
+    private static String fitHtml(FitResult r) {
         StringBuilder h = new StringBuilder("<div class=\"loopledger-fit\">");
+        if (r.isUsable()) {
+            h.append("<p><strong>Usable</strong>: no warning from the checks (fit quality, band, physical range, conditioning, "
+                    + "determination, correlation, sub-band consistency)</p>");
+        } else {
+            h.append("<p><strong>Fit NOT usable</strong>: ").append(r.warnings().size()).append(r.warnings().size() == 1 ? " warning" : " warnings")
+                    .append("</p>");
+            HtmlTable w = HtmlTable.of("Why the fit cannot be used as it stands", "Check", "Parameter", "Frequency (Hz)", "Finding");
+            for (FitWarning x : r.warnings()) {
+                w.row(x.kind().name(), x.parameter().orElse(""), x.frequencyHz().isPresent() ? Figures.num(x.frequencyHz().getAsDouble()) : "", x.message());
+            }
+            w.appendTo(h);
+        }
         HtmlTable p = HtmlTable.of(String.format(Locale.ROOT, "Fitted model: %d points, %d iterations, reduced chi-square %s", r.points(), r.iterations(),
                 Figures.num(r.reducedChiSquare())), "Parameter", "Value", "Unit", "Standard error", "95 % low", "95 % high");
         for (ParameterEstimate e : r.parameters()) {
@@ -61,7 +90,7 @@ public final class ResultRenderers {
             }
             q.appendTo(h);
         }
-        return html(r.toString(), h.append("</div>").toString());
+        return h.append("</div>").toString();
     }
 
     /** Time-response figures of one simulated excitation. */
