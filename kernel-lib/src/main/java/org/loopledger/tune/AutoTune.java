@@ -353,8 +353,8 @@ public final class AutoTune {
             if (reached && bestIdx == 0) {
                 trace.add("position target " + target + ": Kp reaches it with the best-ranked velocity loop");
             } else if (reached) {
-                trace.add("position target " + target + ": with the best-ranked velocity loop Kp stops at "
-                        + (Double.isNaN(kpAtBest) ? "no gain that meets the limits" : Units.g4(kpAtBest) + " 1/s (" + Units.formatHz(Units.radPerSToHz(kpAtBest)) + ")")
+                trace.add("position target " + target + ": with the best-ranked velocity loop "
+                        + (Double.isNaN(kpAtBest) ? "no position gain meets the limits" : "Kp stops at " + Units.g4(kpAtBest) + " 1/s (" + Units.formatHz(Units.radPerSToHz(kpAtBest)) + ")")
                         + "; velocity crossover lowered to " + Units.formatHz(Units.radPerSToHz(bestOmegaCv)) + ", the highest that lets Kp reach " + target
                         + " (" + describeChoice(bestIdx) + ")");
                 binding = "velocity loop: lowered for the position target (" + spec.bindingConstraint(feasibleFigures.get(bestIdx)) + " at the higher crossovers)";

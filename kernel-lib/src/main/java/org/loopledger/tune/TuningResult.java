@@ -94,10 +94,11 @@ public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, Tun
     }
 
     private boolean meets(org.loopledger.analysis.Margins m) {
-        double tol = 1e-3; // the screen interpolates linearly between grid points; the re-analysis refines
-        boolean pm = m.phaseMarginDeg().isEmpty() || m.phaseMarginDeg().getAsDouble() >= spec.minPhaseMarginDeg() * (1 - tol);
-        boolean gm = m.gainMarginDb().isEmpty() || m.gainMarginDb().getAsDouble() >= spec.minGainMarginDb() * (1 - tol);
-        boolean ms = m.sensitivityPeak().magnitude() <= spec.maxSensitivityPeak() * (1 + tol);
+        // strict: the re-analysis is the refined figure the user sees, so 44.96 deg does not meet "PM >= 45 deg"
+        // (the screen's guard bands, TuningSpec.GUARD_*, keep the chosen loops clear of the limits)
+        boolean pm = m.phaseMarginDeg().isEmpty() || m.phaseMarginDeg().getAsDouble() >= spec.minPhaseMarginDeg();
+        boolean gm = m.gainMarginDb().isEmpty() || m.gainMarginDb().getAsDouble() >= spec.minGainMarginDb();
+        boolean ms = m.sensitivityPeak().magnitude() <= spec.maxSensitivityPeak();
         return pm && gm && ms;
     }
 

@@ -132,6 +132,18 @@ class AutoTuneTest {
         assertFalse(r.specMet(), "limits met but a stated target missed");
     }
 
+    @Test
+    void aPhaseMarginJustUnderTheLimitIsNotMet() {
+        // L = k/(s(s+1)): PM = 90° - atan(ω_c) (by hand). ω_c = tan(45.02°) gives PM = 44.98°, k = ω_c·sqrt(1 + ω_c²).
+        double wc = Math.tan(Math.toRadians(45.02)), k = wc * Math.sqrt(1 + wc * wc);
+        Margins m = Margins.of(TransferFunction.continuous(new double[] {k}, new double[] {1, 1, 0}));
+        assertEquals(44.98, m.phaseMarginDeg().getAsDouble(), 1e-6);
+        TuningResult r = new TuningResult(org.loopledger.control.Piv.of(1, 1, 0), FilterChain.none(), DriveTiming.continuous(),
+                TuningSpec.builder().minPhaseMarginDeg(45).minGainMarginDb(1).maxSensitivityPeak(5).build(),
+                List.of(new LoadCaseFigures("only", m, m, m)), true, List.of(), "x", List.of(), 0, 0);
+        assertFalse(r.reanalysisMeetsSpec(), "44.98 deg does not meet PM >= 45 deg");
+    }
+
     /** The trace's final statement names the parameters the result carries (as {@code Units.g4} prints them). */
     static void assertChosenStatementNamesTheGains(TuningResult t) {
         String last = t.trace().get(t.trace().size() - 1);
