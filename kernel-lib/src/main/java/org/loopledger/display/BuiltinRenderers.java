@@ -19,7 +19,10 @@ final class BuiltinRenderers {
         r.register(org.loopledger.control.CoefficientTable.class, ResultRenderers::coefficients);
         r.register(org.loopledger.control.PivParameters.class, ResultRenderers::pivParameters);
         r.register(org.loopledger.ident.fit.FitResult.class, ResultRenderers::fit);
+        r.register(org.loopledger.ident.fit.TwoMassFit.class, ResultRenderers::twoMassFit);
+        r.register(org.loopledger.ident.fit.RigidBodyFit.class, ResultRenderers::rigidBodyFit);
         r.register(org.loopledger.sim.ResponseMetrics.class, ResultRenderers::response);
         r.register(org.loopledger.tune.TuningResult.class, ResultRenderers::tuning);
+        r.register(org.loopledger.tune.Resonance.class, ResultRenderers::resonance);
     }
 }

@@ -7,12 +7,18 @@ import org.loopledger.control.Filter;
 import org.loopledger.control.PivParameters;
 import org.loopledger.ident.fit.BandQuality;
 import org.loopledger.ident.fit.FitResult;
+import org.loopledger.ident.fit.FitWarning;
+import org.loopledger.ident.fit.RigidBodyFit;
+import org.loopledger.ident.fit.TwoMassFit;
 import org.loopledger.ident.fit.ParameterEstimate;
 import org.loopledger.lti.Motion;
 import org.loopledger.lti.Units;
 import org.loopledger.sim.Excitation;
 import org.loopledger.sim.ResponseMetrics;
 import org.loopledger.tune.LoadCaseFigures;
+import org.loopledger.tune.Resonance;
+import org.loopledger.tune.ResonanceWarning;
+import org.loopledger.tune.TargetCheck;
 import org.loopledger.tune.TuningResult;
 
 import java.util.Locale;
@@ -42,9 +48,35 @@ public final class ResultRenderers {
 
     private static String digits15(double v) { return String.format(Locale.ROOT, "%+.15e", v); }
 
-    /** Fitted parameters (value, unit, standard error, 95 % interval) and the fit quality per band. */
+    /** Fitted parameters (value, unit, standard error, 95 % interval), the fit quality per band, and the usability verdict with its warnings. */
     public static MimeBundle fit(FitResult r) {
+        return html(r.toString(), fitHtml(r));
+    }
+
+    /** A two-mass fit: the estimate in words, then the fit's tables. */
+    public static MimeBundle twoMassFit(TwoMassFit f) {
+        return html(f.toString(), "<p>" + HtmlEscape.escape(f.estimate().toString()) + "</p>" + fitHtml(f.fit()));
+    }
+
+    /** A rigid-body fit: the estimate in words, then the fit's tables. */
+    public static MimeBundle rigidBodyFit(RigidBodyFit f) {
+        return html(f.toString(), "<p>" + HtmlEscape.escape(f.estimate().toString()) + "</p>" + fitHtml(f.fit()));
+    }
+
+    private static String fitHtml(FitResult r) {
         StringBuilder h = new StringBuilder("<div class=\"loopledger-fit\">");
+        if (r.isUsable()) {
+            h.append("<p><strong>Usable</strong>: no warning from the checks (fit quality, band, physical range, conditioning, "
+                    + "determination, correlation, sub-band consistency)</p>");
+        } else {
+            h.append("<p><strong>Fit NOT usable</strong>: ").append(r.warnings().size()).append(r.warnings().size() == 1 ? " warning" : " warnings")
+                    .append("</p>");
+            HtmlTable w = HtmlTable.of("Why the fit cannot be used as it stands", "Check", "Parameter", "Frequency (Hz)", "Finding");
+            for (FitWarning x : r.warnings()) {
+                w.row(x.kind().name(), x.parameter().orElse(""), x.frequencyHz().isPresent() ? Figures.num(x.frequencyHz().getAsDouble()) : "", x.message());
+            }
+            w.appendTo(h);
+        }
         HtmlTable p = HtmlTable.of(String.format(Locale.ROOT, "Fitted model: %d points, %d iterations, reduced chi-square %s", r.points(), r.iterations(),
                 Figures.num(r.reducedChiSquare())), "Parameter", "Value", "Unit", "Standard error", "95 % low", "95 % high");
         for (ParameterEstimate e : r.parameters()) {
@@ -60,7 +92,7 @@ public final class ResultRenderers {
             }
             q.appendTo(h);
         }
-        return html(r.toString(), h.append("</div>").toString());
+        return h.append("</div>").toString();
     }
 
     /** A drive's PIV parameter list in the axis' units, 6 significant digits, with the caution. */
@@ -98,6 +130,15 @@ public final class ResultRenderers {
         StringBuilder h = new StringBuilder("<div class=\"loopledger-tuning\">");
         h.append("<p><strong>").append(r.specMet() ? "Spec met" : "Spec NOT met").append("</strong>; binding constraint: ")
                 .append(HtmlEscape.escape(r.bindingConstraint())).append("</p>");
+        if (!r.targets().isEmpty()) {
+            HtmlTable t = HtmlTable.of("Targets stated in the spec (worst load case, independent re-analysis)", "Target", "Asked (Hz)", "Achieved (Hz)",
+                    "Load case", "Result");
+            for (TargetCheck c : r.targets()) {
+                t.row(c.kind().label(), Figures.num(c.askedHz()), Double.isNaN(c.achievedHz()) ? "none in band" : Figures.num(c.achievedHz()),
+                        c.loadCase(), c.met() ? "met" : "MISSED: " + c.describe());
+            }
+            t.appendTo(h);
+        }
         HtmlTable g = HtmlTable.of("Gains", "Parameter", "Value", "Unit");
         Motion motion = r.motion();
         double kp = r.piv().positionGainPerS(), kv = r.piv().velocity().velocityGain();
@@ -121,6 +162,24 @@ public final class ResultRenderers {
             h.append("</ol>");
         }
         h.append("<p>").append(r.evaluations()).append(" loop evaluations</p>");
+        return html(r.toString(), h.append("</div>").toString());
+    }
+
+    /** A found resonance: frequency, prominence, half-power width, damping estimate, and any warning about its resolution. */
+    public static MimeBundle resonance(Resonance r) {
+        StringBuilder h = new StringBuilder("<div class=\"loopledger-resonance\">");
+        HtmlTable t = HtmlTable.of("Resonance" + (r.dampingResolved() ? "" : " (damping NOT resolved)"), "Frequency (Hz)", "Above rigid-body trend (dB)",
+                "Half-power width (Hz)", "Damping estimate");
+        t.row(Figures.num(r.frequencyHz()), Figures.num(r.prominenceDb()), Figures.num(r.halfPowerWidthHz()),
+                r.dampingResolved() ? Figures.num(r.dampingEstimate()) : Figures.num(r.dampingEstimate()) + " (not resolved)");
+        t.appendTo(h);
+        if (!r.warnings().isEmpty()) {
+            h.append("<ul class=\"loopledger-warnings\">");
+            for (ResonanceWarning w : r.warnings()) {
+                h.append("<li><strong>").append(HtmlEscape.escape(w.kind().name())).append("</strong>: ").append(HtmlEscape.escape(w.message())).append("</li>");
+            }
+            h.append("</ul>");
+        }
         return html(r.toString(), h.append("</div>").toString());
     }
 

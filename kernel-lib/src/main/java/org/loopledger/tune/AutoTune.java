@@ -61,6 +61,7 @@ public final class AutoTune {
             }
         }
         long t0 = System.nanoTime();
+        for (PlantCase pc : cases) requireVelocityPlantSign(pc);
         List<CaseArrays> arrays = new ArrayList<>();
         for (PlantCase pc : cases) arrays.add(new CaseArrays(pc, timing, filters));
         Search s = new Search(arrays, timing, spec);
@@ -71,13 +72,59 @@ public final class AutoTune {
         Piv piv = Piv.of(s.bestKp, VelocityPi.ofRadPerS(s.bestKv, s.bestOmegaI));
         List<LoadCaseFigures> figures = new ArrayList<>();
         for (PlantCase pc : cases) figures.add(reanalyse(pc, piv, all, timing));
-        TuningResult screened = new TuningResult(piv, all, timing, spec, figures, s.velocityMet && s.positionMet, s.binding, s.trace, s.evaluations, ms, motion);
-        if (!screened.specMet() || screened.reanalysisMeetsSpec()) return screened;
-        // the screen said yes, the refined re-analysis says no: report the truth
+        List<TargetCheck> targets = TuningResult.targetChecks(spec, figures);
+        boolean limitsMet = s.velocityMet && s.positionMet;
+        String binding = s.binding;
         List<String> trace = new ArrayList<>(s.trace);
-        trace.add("the re-analysis of the chosen loops misses a limit that the screen passed; spec NOT met");
-        return new TuningResult(piv, all, timing, spec, figures, false, s.binding + "; re-analysis misses a limit", trace, s.evaluations, ms, motion);
+        TuningResult probe = new TuningResult(piv, all, timing, spec, figures, limitsMet, targets, binding, trace, s.evaluations, ms, motion);
+        if (limitsMet && !probe.reanalysisMeetsSpec()) {
+            // the screen said yes, the refined re-analysis says no: report the truth
+            limitsMet = false;
+            binding = binding + "; re-analysis misses a limit";
+            trace.add("the re-analysis of the chosen loops misses a limit that the screen passed; spec NOT met");
+        }
+        for (TargetCheck t : targets) {
+            if (t.met()) continue;
+            if (t.kind() == TargetCheck.Kind.POSITION_BANDWIDTH) {
+                binding = binding.replace("position bandwidth target reached", "Kp at the position target, but the re-analysed crossover falls short");
+            }
+            trace.add("target missed on the re-analysis: " + t.describe());
+        }
+        trace.add(s.chosenStatement(piv, all));
+        return new TuningResult(piv, all, timing, spec, figures, limitsMet, targets, binding, trace, s.evaluations, ms, motion);
     }
+
+    /**
+     * Refuses a plant whose low-frequency phase says the sign is inverted. Current (or torque) to velocity
+     * starts between 0° (friction-dominated, below b/J) and -90° (inertia-dominated), less a little delay
+     * (common practice: a motor accelerates in the direction of its torque); a negative gain puts it near
+     * +90° or ±180°, where any positive controller gain makes the loop unstable and the tuner's margins mean
+     * nothing. The phase is the mean direction of the points in the lowest octave of the data.
+     */
+    static void requireVelocityPlantSign(PlantCase pc) {
+        Frf p = pc.plantToVelocity();
+        double[] w = p.omegaRadPerS(), re = p.real(), im = p.imag();
+        double sr = 0, si = 0;
+        int k = 0;
+        for (int i = 0; i < w.length && (w[i] <= 2 * w[0] || k < 3); i++, k++) {
+            double m = Math.hypot(re[i], im[i]);
+            if (m > 0) {
+                sr += re[i] / m;
+                si += im[i] / m;
+            }
+        }
+        double phaseDeg = Math.toDegrees(Math.atan2(si, sr));
+        if (phaseDeg >= LOWEST_PLANT_PHASE_DEG && phaseDeg <= HIGHEST_PLANT_PHASE_DEG) return;
+        throw new IllegalArgumentException(String.format(java.util.Locale.ROOT,
+                "load case '%s': the plant's phase at low frequency (%s .. %s) is %+.0f deg, but current to velocity starts between 0 and -90 deg "
+                        + "(a motor accelerates in the direction of its torque): the plant has an inverted sign. Flip the sign of the velocity or "
+                        + "the current channel (or use the FRF's negate()) and tune again; if this is a current-to-position FRF, "
+                        + "give current to velocity instead", pc.label(), Units.formatHz(Units.radPerSToHz(w[0])),
+                Units.formatHz(Units.radPerSToHz(w[Math.max(0, k - 1)])), phaseDeg));
+    }
+
+    /** The accepted low-frequency phase band of a current-to-velocity plant: 0 to -90 deg, widened for delay, noise and a lagging current loop. */
+    static final double LOWEST_PLANT_PHASE_DEG = -150, HIGHEST_PLANT_PHASE_DEG = 45;
 
     /**
      * Model-based variant: the plant model (continuous, current to velocity) is evaluated on a dense grid
@@ -108,7 +155,7 @@ public final class AutoTune {
         final TuningSpec spec;
         final List<String> trace = new ArrayList<>();
         long evaluations;
-        double bestOmegaCv = Double.NaN, bestKv, bestOmegaI, bestKp;
+        double bestOmegaCv = Double.NaN, bestKv, bestOmegaI, bestKp, chosenTrialRadPerS = Double.NaN;
         LowPass2 bestLowPass;
         boolean velocityMet, positionMet;
         String binding = "";
@@ -160,11 +207,12 @@ public final class AutoTune {
             double fallbackW = Double.NaN, fallbackKv = 0, fallbackWi = 0;
             LowPass2 fallbackLp = null;
             LoopFigures fallbackFig = null, bestFig = null;
-            int lastTraced = -1;
+            // per trial crossover: the candidate the ranking below prefers among those that meet the limits
+            java.util.TreeMap<Integer, String> trialLines = new java.util.TreeMap<>();
             for (int gi = 0; gi < grid.length; gi++) {
                 double wc = grid[gi];
-                boolean anyMet = false;
-                String line = null;
+                int metHere = 0, triedHere = 0;
+                int bestHere = -1;
                 for (LowPass2 lp : lowPassOptions(wc)) {
                     for (CaseArrays c : cases) c.setLowPass(lp, timing);
                     for (double r : ratios) {
@@ -172,15 +220,14 @@ public final class AutoTune {
                         double kv = 0;
                         for (CaseArrays c : cases) kv = Math.max(kv, 1.0 / (c.baseMagnitudeAt(wc) * c.piMagnitudeAt(wc, wi)));
                         LoopFigures worst = worstVelocity(kv, wi);
+                        triedHere++;
                         if (spec.meets(worst)) {
-                            feasible.add(new double[] {wc, kv, wi, worst.crossoverRadPerS(), r});
+                            feasible.add(new double[] {wc, kv, wi, worst.crossoverRadPerS(), r, gi});
                             feasibleLowPass.add(lp);
                             feasibleFigures.add(worst);
-                            if (!anyMet) {
-                                anyMet = true;
-                                line = String.format(java.util.Locale.ROOT, "trial crossover %s: met with ω_cv/ω_i = %s%s (%s)", Units.formatHz(Units.radPerSToHz(wc)),
-                                        Units.g4(r), lp == null ? "" : ", low-pass at " + Units.formatHz(lp.naturalHz()), worst);
-                            }
+                            metHere++;
+                            int idx = feasible.size() - 1;
+                            if (bestHere < 0 || ranksBefore(idx, bestHere)) bestHere = idx;
                         } else {
                             double sf = spec.shortfall(worst);
                             if (sf < bestShortfall) {
@@ -193,14 +240,28 @@ public final class AutoTune {
                             }
                         }
                     }
-                    if (anyMet) break; // prefer no extra low-pass, then the lowest one that works
+                    if (metHere > 0) break; // prefer no extra low-pass, then the lowest one that works
                 }
-                if (line != null && (gi - lastTraced >= 10 || gi == grid.length - 1)) {
-                    trace.add(line);
-                    lastTraced = gi;
+                if (bestHere >= 0) {
+                    double[] b = feasible.get(bestHere);
+                    LowPass2 lp = feasibleLowPass.get(bestHere);
+                    trialLines.put(gi, String.format(java.util.Locale.ROOT, "trial crossover %s: %d of %d candidates meet the limits; best ranked ω_cv/ω_i = %s%s (%s)",
+                            Units.formatHz(Units.radPerSToHz(wc)), metHere, triedHere, Units.g4(b[4]),
+                            lp == null ? ", no low-pass" : ", low-pass at " + Units.formatHz(lp.naturalHz()), feasibleFigures.get(bestHere)));
                 }
             }
             sortFeasible();
+            // the trace samples the trials (about one in ten that meet the limits, and the last one) and always shows the chosen one
+            int lastTraced = -100;
+            int chosenTrial = feasible.isEmpty() ? -1 : (int) feasible.get(0)[5];
+            Integer lastKey = trialLines.isEmpty() ? null : trialLines.lastKey();
+            for (var e : trialLines.entrySet()) {
+                int gi = e.getKey();
+                if (gi - lastTraced >= 10 || gi == chosenTrial || e.getKey().equals(lastKey)) {
+                    trace.add(e.getValue());
+                    lastTraced = gi;
+                }
+            }
             if (!feasible.isEmpty()) {
                 useChoice(0);
                 bestFig = feasibleFigures.get(0);
@@ -209,16 +270,18 @@ public final class AutoTune {
                 if (feasible.get(0)[0] >= grid[grid.length - 1] * (1 - 1e-12) && grid.length > 1) {
                     binding = "velocity loop: top of the searched band (" + Units.formatHz(Units.radPerSToHz(grid[grid.length - 1])) + ")";
                 }
-                trace.add("velocity loop chosen: worst-case crossover " + Units.formatHz(Units.radPerSToHz(bestOmegaCv)) + ", Kv " + Units.g4(bestKv)
-                        + ", integral corner " + Units.formatHz(Units.radPerSToHz(bestOmegaI)) + "; binding: " + binding);
+                trace.add("velocity loop ranked best (highest worst-case crossover, then most integral action, then no low-pass): " + describeChoice(0)
+                        + "; binding: " + binding);
             } else {
                 velocityMet = false;
                 bestOmegaCv = fallbackW;
+                chosenTrialRadPerS = fallbackW;
                 bestKv = fallbackKv;
                 bestOmegaI = fallbackWi;
                 bestLowPass = fallbackLp;
                 binding = "velocity loop fails " + spec.bindingConstraint(fallbackFig) + " (best reachable: " + fallbackFig + ")";
-                trace.add("no velocity candidate meets the spec; closest: crossover " + Units.formatHz(Units.radPerSToHz(fallbackW)) + ", " + fallbackFig);
+                trace.add("no velocity candidate meets the spec; closest: trial crossover " + Units.formatHz(Units.radPerSToHz(fallbackW)) + ", ω_cv/ω_i = "
+                        + Units.g4(fallbackW / fallbackWi) + ", " + fallbackFig);
             }
             for (CaseArrays c : cases) c.setLowPass(bestLowPass, timing);
         }
@@ -257,7 +320,8 @@ public final class AutoTune {
         /**
          * Without a position target: the highest velocity crossover and the best Kp it allows. With one: the
          * highest velocity crossover whose loops let Kp reach the target (a stiffer position loop is worth a
-         * slightly lower velocity crossover), else the choice with the highest Kp.
+         * slightly lower velocity crossover), else the choice with the highest Kp. The trace says which of the
+         * two happened, and never claims a target that was not reached.
          */
         void positionOverChoices() {
             if (!spec.hasPositionBandwidthTarget() || feasible.size() < 2) {
@@ -267,19 +331,26 @@ public final class AutoTune {
             double targetKp = Units.hzToRadPerS(spec.positionBandwidthHz());
             double bestFoundKp = -1;
             int bestIdx = 0;
+            boolean reached = false;
             List<String> savedTrace = new ArrayList<>(trace);
+            String savedBinding = binding;
             double lastCrossover = Double.NaN;
             int tried = 0;
+            double highestTried = Double.NaN, lowestTried = Double.NaN, kpAtBest = Double.NaN;
             for (int k = 0; k < feasible.size() && tried < 40; k++) {
                 if (feasible.get(k)[3] == lastCrossover) continue; // one candidate per crossover: the best-ranked
                 lastCrossover = feasible.get(k)[3];
                 tried++;
+                if (tried == 1) highestTried = lastCrossover;
+                lowestTried = lastCrossover;
                 useChoice(k);
                 trace.clear();
                 position();
+                if (k == 0) kpAtBest = positionMet ? bestKp : Double.NaN;
                 if (positionMet && bestKp >= targetKp * (1 - 1e-9)) {
                     bestIdx = k;
                     bestFoundKp = bestKp;
+                    reached = true;
                     break;
                 }
                 if (positionMet && bestKp > bestFoundKp) {
@@ -290,12 +361,58 @@ public final class AutoTune {
             useChoice(bestIdx);
             trace.clear();
             trace.addAll(savedTrace);
-            if (bestIdx != 0) {
-                trace.add("velocity crossover lowered to " + Units.formatHz(Units.radPerSToHz(bestOmegaCv)) + " so the position loop can reach "
-                        + Units.formatHz(spec.positionBandwidthHz()));
+            binding = savedBinding;
+            String target = Units.formatHz(spec.positionBandwidthHz());
+            if (reached && bestIdx == 0) {
+                trace.add("position target " + target + ": Kp reaches it with the best-ranked velocity loop");
+            } else if (reached) {
+                trace.add("position target " + target + ": with the best-ranked velocity loop "
+                        + (Double.isNaN(kpAtBest) ? "no position gain meets the limits" : "Kp stops at " + Units.g4(kpAtBest) + " 1/s (" + Units.formatHz(Units.radPerSToHz(kpAtBest)) + ")")
+                        + "; velocity crossover lowered to " + Units.formatHz(Units.radPerSToHz(bestOmegaCv)) + ", the highest that lets Kp reach " + target
+                        + " (" + describeChoice(bestIdx) + ")");
                 binding = "velocity loop: lowered for the position target (" + spec.bindingConstraint(feasibleFigures.get(bestIdx)) + " at the higher crossovers)";
+            } else if (bestFoundKp < 0) {
+                trace.add("position target " + target + ": no velocity candidate (" + tried + " tried, worst-case crossovers "
+                        + Units.formatHz(Units.radPerSToHz(lowestTried)) + " .. " + Units.formatHz(Units.radPerSToHz(highestTried))
+                        + ") lets a position gain meet the limits; keeping the best-ranked velocity loop");
+            } else {
+                trace.add("position target " + target + " NOT reachable: over " + tried + " velocity candidates (worst-case crossovers "
+                        + Units.formatHz(Units.radPerSToHz(lowestTried)) + " .. " + Units.formatHz(Units.radPerSToHz(highestTried))
+                        + ") the highest Kp that meets the limits is " + Units.g4(bestFoundKp) + " 1/s (" + Units.formatHz(Units.radPerSToHz(bestFoundKp))
+                        + "), with velocity crossover " + Units.formatHz(Units.radPerSToHz(bestOmegaCv))
+                        + (bestIdx == 0 ? " (the best-ranked velocity loop)" : ", lowered from " + Units.formatHz(Units.radPerSToHz(highestTried)) + " for it"));
+                if (bestIdx != 0) {
+                    binding = "velocity loop: lowered for the highest reachable position gain (" + spec.bindingConstraint(feasibleFigures.get(bestIdx))
+                            + " at the higher crossovers)";
+                }
             }
             position();
+        }
+
+        /** Whether feasible candidate i ranks before j (the order of {@link #sortFeasible}). */
+        private boolean ranksBefore(int i, int j) {
+            double ci = feasible.get(i)[3], cj = feasible.get(j)[3];
+            if (ci != cj) return ci > cj;
+            double ri = feasible.get(i)[4], rj = feasible.get(j)[4];
+            if (ri != rj) return ri < rj;
+            return feasibleLowPass.get(i) == null && feasibleLowPass.get(j) != null;
+        }
+
+        /** One feasible velocity candidate in words: trial crossover, ratio, low-pass, gains and screened figures. */
+        private String describeChoice(int k) {
+            double[] c = feasible.get(k);
+            LowPass2 lp = feasibleLowPass.get(k);
+            return "trial crossover " + Units.formatHz(Units.radPerSToHz(c[0])) + ", ω_cv/ω_i = " + Units.g4(c[4])
+                    + (lp == null ? ", no low-pass" : ", low-pass at " + Units.formatHz(lp.naturalHz())) + ", Kv " + Units.g4(c[1])
+                    + ", integral corner " + Units.formatHz(Units.radPerSToHz(c[2])) + ": worst-case " + feasibleFigures.get(k);
+        }
+
+        /** The trace's last line: the parameters the result carries, in the units a drive takes. */
+        String chosenStatement(Piv piv, FilterChain all) {
+            String ratio = bestOmegaI > 0 ? ", ω_cv/ω_i = " + Units.g4(chosenTrialRadPerS / bestOmegaI) + " at trial crossover "
+                    + Units.formatHz(Units.radPerSToHz(chosenTrialRadPerS)) : "";
+            return "chosen: Kp " + Units.g4(piv.positionGainPerS()) + " 1/s, Kv " + Units.g4(piv.velocity().velocityGain()) + ", integral corner "
+                    + Units.formatHz(piv.velocity().integralCornerHz()) + ratio + "; filters: " + (all.isEmpty() ? "none" : all.toString());
         }
 
         /**
@@ -326,6 +443,7 @@ public final class AutoTune {
 
         private void useChoice(int k) {
             double[] c = feasible.get(k);
+            chosenTrialRadPerS = c[0];
             bestOmegaCv = c[3];
             bestKv = c[1];
             bestOmegaI = c[2];

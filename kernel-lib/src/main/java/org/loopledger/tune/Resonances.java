@@ -1,6 +1,7 @@
 package org.loopledger.tune;
 
 import org.loopledger.frf.Frf;
+import org.loopledger.lti.Units;
 
 import java.util.ArrayList;
 import java.util.Arrays;
@@ -19,7 +20,11 @@ import java.util.List;
  * falls 3 dB below the peak (rises 3 dB above the dip) on both sides, and the damping is estimated as
  * ζ ≈ Δf/(2f) (half-power bandwidth method; common practice, e.g. Ewins, Modal Testing, 2nd ed., §4.3, from
  * memory; for a dip |1 - x² + 2jζx| doubles its squared value at x ≈ 1 ± ζ, the same width, derivation by hand).
- * The frequency is that of the extreme grid point: the grid's resolution limits it.
+ * The frequency is that of the extreme grid point: the grid's resolution limits it. The method needs the
+ * extreme resolved by the grid: when the half-power width is narrower than the frequency spacing there, or
+ * fewer than three points lie beyond the half-power level, the result carries a
+ * {@link ResonanceWarning.Kind#DAMPING_NOT_RESOLVED} warning (the sampled top sits below the true one, so the
+ * width and damping are artefacts of the grid).
  */
 public final class Resonances {
     /** Net integrators of a plant to position (current → position: 1/s²). */
@@ -28,6 +33,8 @@ public final class Resonances {
     public static final int TO_VELOCITY = 1;
     /** Net integrators of a plant to acceleration (current → acceleration: a constant). */
     public static final int TO_ACCELERATION = 0;
+    /** Points above the half-power level for the peak to count as resolved (common practice: a few points across the peak). */
+    static final int MIN_POINTS_ABOVE_HALF_POWER = 3;
 
     private Resonances() {}
 
@@ -43,7 +50,9 @@ public final class Resonances {
      */
     public static List<Resonance> find(Frf plant, int integrators, double minProminenceDb) {
         List<Resonance> out = new ArrayList<>();
-        for (double[] e : extremes(plant, integrators, minProminenceDb, +1)) out.add(new Resonance(e[0], e[1], e[2], e[2] / (2 * e[0])));
+        for (double[] e : extremes(plant, integrators, minProminenceDb, +1)) {
+            out.add(new Resonance(e[0], e[1], e[2], e[2] / (2 * e[0]), resolution(e, "peak")));
+        }
         out.sort(Comparator.comparingDouble(Resonance::prominenceDb).reversed());
         return out;
     }
@@ -56,12 +65,30 @@ public final class Resonances {
     /** As {@link #find(Frf, int, double)}, for dips: antiresonances at least {@code minDepthDb} (&gt; 0) below the trend, deepest first. */
     public static List<Antiresonance> findAntiresonances(Frf plant, int integrators, double minDepthDb) {
         List<Antiresonance> out = new ArrayList<>();
-        for (double[] e : extremes(plant, integrators, minDepthDb, -1)) out.add(new Antiresonance(e[0], e[1], e[2], e[2] / (2 * e[0])));
+        for (double[] e : extremes(plant, integrators, minDepthDb, -1)) {
+            out.add(new Antiresonance(e[0], e[1], e[2], e[2] / (2 * e[0]), resolution(e, "dip")));
+        }
         out.sort(Comparator.comparingDouble(Antiresonance::depthDb).reversed());
         return out;
     }
 
-    /** {frequency Hz, height above (sign +1) or depth below (sign -1) the trend in dB, half-power width Hz} per extreme. */
+    /** The DAMPING_NOT_RESOLVED warning for an extreme {f, dB, width, spacing, points beyond half power}, or none. */
+    private static List<ResonanceWarning> resolution(double[] e, String what) {
+        double f = e[0], width = e[2], spacingHz = e[3];
+        int above = (int) e[4];
+        if (width >= spacingHz && above >= MIN_POINTS_ABOVE_HALF_POWER) return List.of();
+        return List.of(new ResonanceWarning(ResonanceWarning.Kind.DAMPING_NOT_RESOLVED, f, String.format(java.util.Locale.ROOT,
+                "damping not resolved at %s: the half-power width %s spans %d grid point%s (spacing %s there); the %s's height, width "
+                        + "and damping ≈ %s are set by the grid, not the mechanics. Measure with a finer frequency resolution near %s "
+                        + "(a spacing below %s, i.e. a longer period or record)", Units.formatHz(f), Units.formatHz(width), above,
+                above == 1 ? "" : "s", Units.formatHz(spacingHz), what, Units.g4(width / (2 * f)), Units.formatHz(f),
+                Units.formatHz(Math.max(width, 0) / MIN_POINTS_ABOVE_HALF_POWER))));
+    }
+
+    /**
+     * {frequency Hz, height above (sign +1) or depth below (sign -1) the trend in dB, half-power width Hz,
+     * grid spacing at the extreme Hz, points beyond the half-power level} per extreme.
+     */
     private static List<double[]> extremes(Frf plant, int integrators, double minDb, int sign) {
         if (!(minDb > 0)) throw new IllegalArgumentException("minimum prominence must be a positive number of dB, got " + minDb);
         if (Math.abs(integrators) > 6) {
@@ -83,7 +110,8 @@ public final class Resonances {
             while (b < n - 1 && y[b] > y[i] - 3) b++;
             if (y[a] > y[i] - 3 || y[b] > y[i] - 3) continue; // the half-power points are outside the band
             double fa = interpolateHz(w, y, a, a + 1, y[i] - 3), fb = interpolateHz(w, y, b - 1, b, y[i] - 3);
-            out.add(new double[] {w[i] / (2 * Math.PI), prom, fb - fa});
+            double spacingHz = Math.max(w[i + 1] - w[i], w[i] - w[i - 1]) / (2 * Math.PI);
+            out.add(new double[] {w[i] / (2 * Math.PI), prom, fb - fa, spacingHz, b - a - 1});
         }
         return out;
     }

@@ -16,25 +16,83 @@ import java.util.List;
  * @param filters           the filters on the current command: the user's, plus a low-pass if the tuner placed one
  * @param timing            the drive timing the tuning assumed
  * @param cases             achieved figures per load case
- * @param specMet           every limit met on every load case, by the screen and by the independent re-analysis
+ * @param limitsMet         every robustness limit (PM, GM, Ms, stability) met on every loop and load case, by the screen
+ *                          and by the independent re-analysis
+ * @param targets           every bandwidth target the spec states, checked on the re-analysis ({@link #targetChecks})
  * @param bindingConstraint the limit with the least headroom, or the one that fails
  * @param trace             search steps, one line each
  * @param evaluations       loop-gain evaluations screened
  * @param elapsedMs         wall time of the search in ms
  * @param motion            rotary or linear axis, as the load cases said: the units the gains are shown in
  */
-public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, TuningSpec spec, List<LoadCaseFigures> cases, boolean specMet,
-                           String bindingConstraint, List<String> trace, long evaluations, double elapsedMs, Motion motion) {
+public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, TuningSpec spec, List<LoadCaseFigures> cases, boolean limitsMet,
+                           List<TargetCheck> targets, String bindingConstraint, List<String> trace, long evaluations, double elapsedMs,
+                           Motion motion) {
     public TuningResult {
         cases = List.copyOf(cases);
+        targets = List.copyOf(targets);
         trace = List.copyOf(trace);
         if (motion == null) throw new IllegalArgumentException("say whether the axis is Motion.ROTARY or Motion.LINEAR");
     }
 
     /** A rotary axis. */
-    public TuningResult(Piv piv, FilterChain filters, DriveTiming timing, TuningSpec spec, List<LoadCaseFigures> cases, boolean specMet,
-                        String bindingConstraint, List<String> trace, long evaluations, double elapsedMs) {
-        this(piv, filters, timing, spec, cases, specMet, bindingConstraint, trace, evaluations, elapsedMs, Motion.ROTARY);
+    public TuningResult(Piv piv, FilterChain filters, DriveTiming timing, TuningSpec spec, List<LoadCaseFigures> cases, boolean limitsMet,
+                        List<TargetCheck> targets, String bindingConstraint, List<String> trace, long evaluations, double elapsedMs) {
+        this(piv, filters, timing, spec, cases, limitsMet, targets, bindingConstraint, trace, evaluations, elapsedMs, Motion.ROTARY);
+    }
+
+    /**
+     * The verdict: every limit met (screen and re-analysis) and every target the user stated reached.
+     * A target the user stated is part of the spec: missing it makes this false.
+     */
+    public boolean specMet() {
+        return limitsMet && targets.stream().allMatch(TargetCheck::met);
+    }
+
+    /** The targets that were missed (empty when all are met or none was stated). */
+    public List<TargetCheck> missedTargets() {
+        return targets.stream().filter(t -> !t.met()).toList();
+    }
+
+    /** Checks every bandwidth target {@code spec} states against the re-analysed figures (worst load case). */
+    public static List<TargetCheck> targetChecks(TuningSpec spec, List<LoadCaseFigures> cases) {
+        List<TargetCheck> out = new java.util.ArrayList<>();
+        if (spec.hasVelocityCrossoverTarget()) out.add(worst(TargetCheck.Kind.VELOCITY_CROSSOVER, spec.velocityCrossoverHz(), cases, false));
+        else if (Double.isFinite(spec.maxVelocityCrossoverHz())) {
+            out.add(worst(TargetCheck.Kind.VELOCITY_CROSSOVER_CEILING, spec.maxVelocityCrossoverHz(), cases, false));
+        }
+        if (spec.hasPositionBandwidthTarget()) out.add(worst(TargetCheck.Kind.POSITION_BANDWIDTH, spec.positionBandwidthHz(), cases, true));
+        return out;
+    }
+
+    private static TargetCheck worst(TargetCheck.Kind kind, double askedHz, List<LoadCaseFigures> cases, boolean position) {
+        double lowest = Double.POSITIVE_INFINITY;
+        String where = "";
+        for (LoadCaseFigures c : cases) {
+            double f = position ? c.positionCrossoverHz() : c.velocityCrossoverHz();
+            if (Double.isNaN(f)) return new TargetCheck(kind, askedHz, Double.NaN, c.label());
+            if (f < lowest) {
+                lowest = f;
+                where = c.label();
+            }
+        }
+        return new TargetCheck(kind, askedHz, lowest, cases.size() > 1 ? where : "");
+    }
+
+    /** The first line of the record: the verdict, and for a missed target by how much. */
+    public String headline() {
+        StringBuilder sb = new StringBuilder();
+        if (specMet()) {
+            sb.append("Spec met");
+            if (!targets.isEmpty()) sb.append(" (").append(String.join("; ", targets.stream().map(TargetCheck::describe).toList())).append(')');
+        } else {
+            sb.append("Spec NOT met");
+            List<String> why = new java.util.ArrayList<>();
+            for (TargetCheck t : missedTargets()) why.add(t.describe());
+            if (!limitsMet) why.add("a robustness limit is missed (see the binding constraint)");
+            sb.append(": ").append(String.join("; ", why));
+        }
+        return sb.toString();
     }
 
     /** Whether the independent re-analysis agrees that every load case meets the spec's limits. */
@@ -46,16 +104,17 @@ public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, Tun
     }
 
     private boolean meets(org.loopledger.analysis.Margins m) {
-        double tol = 1e-3; // the screen interpolates linearly between grid points; the re-analysis refines
-        boolean pm = m.phaseMarginDeg().isEmpty() || m.phaseMarginDeg().getAsDouble() >= spec.minPhaseMarginDeg() * (1 - tol);
-        boolean gm = m.gainMarginDb().isEmpty() || m.gainMarginDb().getAsDouble() >= spec.minGainMarginDb() * (1 - tol);
-        boolean ms = m.sensitivityPeak().magnitude() <= spec.maxSensitivityPeak() * (1 + tol);
+        // strict: the re-analysis is the refined figure the user sees, so 44.96 deg does not meet "PM >= 45 deg"
+        // (the screen's guard bands, TuningSpec.GUARD_*, keep the chosen loops clear of the limits)
+        boolean pm = m.phaseMarginDeg().isEmpty() || m.phaseMarginDeg().getAsDouble() >= spec.minPhaseMarginDeg();
+        boolean gm = m.gainMarginDb().isEmpty() || m.gainMarginDb().getAsDouble() >= spec.minGainMarginDb();
+        boolean ms = m.sensitivityPeak().magnitude() <= spec.maxSensitivityPeak();
         return pm && gm && ms;
     }
 
     @Override public String toString() {
         StringBuilder sb = new StringBuilder();
-        sb.append(specMet ? "Spec met" : "Spec NOT met").append(" — binding: ").append(bindingConstraint).append('\n');
+        sb.append(headline()).append(" — binding: ").append(bindingConstraint).append('\n');
         sb.append("  ").append(piv.describe(motion)).append('\n');
         sb.append("  filters: ").append(filters.isEmpty() ? "none" : filters.toString()).append('\n');
         for (LoadCaseFigures c : cases) sb.append("  ").append(c).append('\n');

@@ -150,7 +150,7 @@ public final class TuningSpec {
 
         public Builder maxSensitivityPeakDb(double db) { return maxSensitivityPeak(Units.dbToRatio(db)); }
 
-        /** Put the velocity-loop crossover at this frequency (worst load case) and choose the rest. */
+        /** Put the velocity-loop crossover at this frequency (worst load case) and choose the rest; the verdict checks it (±1 %). */
         public Builder velocityCrossoverHz(double hz) {
             if (!(hz > 0) || Double.isInfinite(hz)) throw new IllegalArgumentException("velocity crossover must be a positive frequency in Hz, got " + hz);
             velocityCrossoverHz = hz;
@@ -163,7 +163,10 @@ public final class TuningSpec {
             return this;
         }
 
-        /** Aim the position loop at this bandwidth (Kp ≈ 2π·f), as far as the limits allow. */
+        /**
+         * Aim the position loop at this bandwidth (Kp ≈ 2π·f), as far as the limits allow. A target, hence part of the
+         * verdict: the spec is met only if the re-analysed position-loop crossover reaches it on every load case.
+         */
         public Builder positionBandwidthHz(double hz) {
             if (!(hz > 0) || Double.isInfinite(hz)) throw new IllegalArgumentException("position bandwidth must be a positive frequency in Hz, got " + hz);
             positionBandwidthHz = hz;

@@ -65,6 +65,19 @@ class DemoAxisTuningTest {
                 assertTrue(r.passed(), c.label() + ":\n" + r);
             }
         }
+        // the 40 Hz position target is part of the verdict and reached on the re-analysis of every load case
+        assertEquals(1, t.targets().size(), t.toString());
+        assertTrue(t.targets().get(0).met() && t.targets().get(0).achievedHz() >= 40 * 0.99, t.toString());
+        for (LoadCaseFigures f : t.cases()) assertTrue(f.positionCrossoverHz() >= 40 * 0.99, f.toString());
+        // the trace names what it chose: a lowered velocity loop is stated with its ratio, and the last line carries the gains
+        AutoTuneTest.assertChosenStatementNamesTheGains(t);
+        String last = t.trace().get(t.trace().size() - 1);
+        String lowered = t.trace().stream().filter(l -> l.contains("velocity crossover lowered to")).findFirst().orElse(null);
+        if (lowered != null) {
+            var m = java.util.regex.Pattern.compile("ω_cv/ω_i = ([0-9.]+) at trial crossover (.+?);").matcher(last);
+            assertTrue(m.find(), last);
+            assertTrue(lowered.contains("(trial crossover " + m.group(2) + ", ω_cv/ω_i = " + m.group(1) + ","), lowered + "\n" + last);
+        }
         // a useful tuning, not a timid one: velocity crossover above 100 Hz on the heaviest case
         assertTrue(t.worstVelocityCrossoverHz() > 100, t.toString());
     }

@@ -34,9 +34,39 @@ class ResonanceTest {
         Resonance r = found.get(0);
         assertEquals(fr, r.frequencyHz(), 0.02 * fr, r.toString());
         assertEquals(zr, r.dampingEstimate(), 0.2 * zr, r.toString());
+        assertTrue(r.dampingResolved() && r.warnings().isEmpty(), "about 20 points across the peak: " + r);
         // a rigid body has none
         assertTrue(Resonances.find(Frf.ofModel(AutoTuneTest.rigid(5e-4), FrequencyGrid.logHz(5, 3000, 500)), 3).isEmpty());
         assertThrows(IllegalArgumentException.class, () -> Resonances.find(p, 0));
+    }
+
+    @Test
+    void aPeakNarrowerThanTheGridSpacingSaysItsDampingIsNotResolved() {
+        // ζ = 0.001 at 400 Hz: half-power width 2ζf = 0.8 Hz (common practice), on a 300-point log grid from 5 to
+        // 3000 Hz whose spacing at 400 Hz is 400·(ln 600/299) ≈ 8.6 Hz: the grid samples the peak once at most.
+        double fr = 400;
+        Frf coarse = Frf.ofModel(twoMass(5e-4, 250, 0.02, fr, 0.001), FrequencyGrid.logHz(5, 3000, 300));
+        Resonance r = Resonances.find(coarse, 6).get(0);
+        assertFalse(r.dampingResolved(), r.toString());
+        assertEquals(1, r.warnings().size(), r.toString());
+        ResonanceWarning w = r.warnings().get(0);
+        assertEquals(ResonanceWarning.Kind.DAMPING_NOT_RESOLVED, w.kind());
+        assertEquals(fr, w.frequencyHz(), 0.03 * fr);
+        assertTrue(w.message().contains("damping not resolved") && w.message().contains("finer frequency resolution"), w.message());
+        assertTrue(r.toString().contains("warning: damping not resolved"), r.toString());
+        // the same resonance on a grid fine enough (0.05 Hz spacing, 16 points across the width): resolved, damping within 20 %
+        Frf fine = Frf.ofModel(twoMass(5e-4, 250, 0.02, fr, 0.001), FrequencyGrid.logHz(380, 420, 801));
+        Resonance rf = Resonances.find(fine, 6).get(0);
+        assertTrue(rf.dampingResolved(), rf.toString());
+        assertEquals(0.001, rf.dampingEstimate(), 0.2 * 0.001, rf.toString());
+    }
+
+    @Test
+    void theDemoAxisResonancesAreResolved() throws java.io.IOException {
+        for (PlantCase c : DemoAxisTuningTest.demoCases()) {
+            Resonance r = Resonances.find(c.plantToVelocity(), 6).get(0);
+            assertTrue(r.warnings().isEmpty(), c.label() + ": " + r);
+        }
     }
 
     @Test

@@ -40,9 +40,14 @@ public final class ModelFit {
     /**
      * Fits K<sub>t</sub>/(J s + b) (or /(J s² + b s) to position), optionally with delay. The parameters are
      * named and united by {@link FitOptions#motion()}: "inertia" in kg·m² and N·m·s/rad on a rotary axis,
-     * "mass" in kg and N·s/m on a linear one.
+     * "mass" in kg and N·s/m on a linear one. The result carries the warnings of the usability checks
+     * ({@link FitChecks}).
      */
     public static RigidBodyFit rigidBody(Frf frf, FitOptions o) {
+        return rigidBody(frf, o, true);
+    }
+
+    private static RigidBodyFit rigidBody(Frf frf, FitOptions o, boolean check) {
         Data d = Data.of(frf, o);
         double[] a = velocityMagnitudes(d, o);
         double[] sorted = a.clone();
@@ -58,12 +63,25 @@ public final class ModelFit {
         est.add(logParam("viscous friction", o.motion().dampingUnit(), s, 1));
         if (o.fitDelay()) est.add(delayParam(s, 2));
         List<double[]> bands = decadeBands(d.fLow(), d.fHigh());
-        FitResult fr = new FitResult(p.model(o.torqueConstantNmPerA(), o.toPosition()), est, quality(Kind.RIGID, d, o, s, bands, null), s.reducedChi2, d.n(), s.iterations);
+        FitResult fr = new FitResult(p.model(o.torqueConstantNmPerA(), o.toPosition()), est, quality(Kind.RIGID, d, o, s, bands, null), s.reducedChi2, d.n(),
+                s.iterations, List.of());
+        if (check) {
+            fr = fr.withWarnings(FitChecks.check(new FitChecks.Input("rigid body", d.fLow(), d.fHigh(), est, fittedNames(Kind.RIGID, o), s.cov, s.condition,
+                    s.weightedRmsLog, o.fitDelay() ? s.theta[2] * DELAY_UNIT_S : 0, null,
+                    FitChecks.subBands(d.fLow(), d.fHigh(), d.fHigh(), d.fLow()), band -> rigidBody(frf, o.bandHz(band[0], band[1]), false).fit().parameters())));
+        }
         return new RigidBodyFit(p, fr);
     }
 
-    /** Fits the two-mass modal form of {@link TwoMassParameters}, optionally with delay. */
+    /**
+     * Fits the two-mass modal form of {@link TwoMassParameters}, optionally with delay; the result carries the
+     * warnings of the usability checks ({@link FitChecks}).
+     */
     public static TwoMassFit twoMass(Frf frf, FitOptions o) {
+        return twoMass(frf, o, true);
+    }
+
+    private static TwoMassFit twoMass(Frf frf, FitOptions o, boolean check) {
         Data d = Data.of(frf, o);
         double[] a = velocityMagnitudes(d, o);
         int ir = 0;
@@ -120,8 +138,22 @@ public final class ModelFit {
         bands.add(new double[] {e1, e2});
         labels.add("resonance region");
         if (e2 < d.fHigh()) { bands.add(new double[] {e2, d.fHigh()}); labels.add("above resonance"); }
-        FitResult fr = new FitResult(p.model(o.torqueConstantNmPerA(), o.toPosition()), est, quality(Kind.TWO_MASS, d, o, s, bands, labels), s.reducedChi2, d.n(), s.iterations);
+        FitResult fr = new FitResult(p.model(o.torqueConstantNmPerA(), o.toPosition()), est, quality(Kind.TWO_MASS, d, o, s, bands, labels), s.reducedChi2, d.n(),
+                s.iterations, List.of());
+        if (check) {
+            fr = fr.withWarnings(FitChecks.check(new FitChecks.Input("two-mass", d.fLow(), d.fHigh(), est, fittedNames(Kind.TWO_MASS, o), s.cov, s.condition,
+                    s.weightedRmsLog, o.fitDelay() ? s.theta[6] * DELAY_UNIT_S : 0, p,
+                    FitChecks.subBands(d.fLow(), d.fHigh(), e1, e2), band -> twoMass(frf, o.bandHz(band[0], band[1]), false).fit().parameters())));
+        }
         return new TwoMassFit(p, fr);
+    }
+
+    /** The names of θ's entries, in order (the covariance's rows). */
+    private static List<String> fittedNames(Kind kind, FitOptions o) {
+        List<String> n = new ArrayList<>(kind == Kind.RIGID ? List.of("inertia", "viscous friction")
+                : List.of("inertia", "viscous friction", "resonance", "resonance damping", "antiresonance", "antiresonance damping"));
+        if (o.fitDelay()) n.add("delay");
+        return n;
     }
 
     private static ParameterEstimate logParam(String name, String unit, Solution s, int i) {
@@ -189,7 +221,11 @@ public final class ModelFit {
         return a;
     }
 
-    private record Solution(double[] theta, double[][] cov, double cost, double reducedChi2, int iterations) {}
+    /**
+     * @param condition      ratio of the largest to the smallest singular value of the weighted Jacobian at the optimum (θ scale)
+     * @param weightedRmsLog √(Σ w²|ln(G<sub>m</sub>/G)|² / Σ w²): the typical misfit as a complex log ratio
+     */
+    private record Solution(double[] theta, double[][] cov, double cost, double reducedChi2, int iterations, double condition, double weightedRmsLog) {}
 
     private static Solution solve(Kind kind, Data d, FitOptions o, List<double[]> starts) {
         Solution best = null;
@@ -236,7 +272,11 @@ public final class ModelFit {
         RealMatrix c = opt.getCovariances(1e-14);
         double[][] cov = new double[p][p];
         for (int i = 0; i < p; i++) for (int j = 0; j < p; j++) cov[i][j] = c.getEntry(i, j) * s2;
-        return new Solution(th, cov, ssr, s2, opt.getIterations());
+        double[] sv = new org.apache.commons.math3.linear.SingularValueDecomposition(opt.getJacobian()).getSingularValues();
+        double condition = sv[sv.length - 1] > 0 ? sv[0] / sv[sv.length - 1] : Double.POSITIVE_INFINITY;
+        double sw2 = 0;
+        for (double wi : d.weight) sw2 += wi * wi;
+        return new Solution(th, cov, ssr, s2, opt.getIterations(), condition, Math.sqrt(ssr / sw2));
     }
 
     /** Model response on the data grid for parameters θ (velocity or position, continuous or sampled). */

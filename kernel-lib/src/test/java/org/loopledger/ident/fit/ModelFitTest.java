@@ -105,6 +105,7 @@ class ModelFitTest {
             assertTrue(f.fit().parameter("inertia ratio").standardErrorsFrom(TRUE.inertiaRatio()) < 3.5, f.toString());
             // correct weights: reduced chi² ≈ 1 (600 residuals: ±0.2 is over 3 standard deviations of its scatter)
             assertEquals(1.0, f.fit().reducedChiSquare(), 0.2, f.toString());
+            assertTrue(f.fit().isUsable(), f.toString());
         }
         // a continuous fit to sampled data is biased near Nyquist: its chi² reveals it
         TwoMassFit wrong = ModelFit.twoMass(samp, FitOptions.velocity(KT).withDelay().bandHz(2, 7000));
@@ -121,6 +122,7 @@ class ModelFitTest {
         assertTrue(f.fit().parameter("viscous friction").standardErrorsFrom(1e-2) < 3.5, f.toString());
         assertEquals(p.mechanicalPoleHz(), f.estimate().mechanicalPoleHz(), 0.05 * p.mechanicalPoleHz());
         assertFalse(f.fit().quality().isEmpty());
+        assertTrue(f.fit().isUsable(), f.toString());
     }
 
     @Test
