@@ -14,6 +14,8 @@ import java.io.IOException;
 import java.io.UncheckedIOException;
 import java.nio.charset.StandardCharsets;
 import java.util.Base64;
+import java.util.LinkedHashMap;
+import java.util.Map;
 import java.util.regex.Pattern;
 
 /**
@@ -39,6 +41,11 @@ public final class LatexSvg {
     /** Text size of display formulas. */
     static final float DISPLAY_PX = 17f;
 
+    /** Recently typeset formulas (a record often repeats one); writing the SVG costs most of the time. */
+    private static final Map<String, Picture> CACHE = new LinkedHashMap<>(64, 0.75f, true) {
+        @Override protected boolean removeEldestEntry(Map.Entry<String, Picture> eldest) { return size() > 256; }
+    };
+
     private static final Pattern LONG_DECIMALS = Pattern.compile("(\\d+\\.\\d{3})\\d+");
 
     private LatexSvg() {}
@@ -49,6 +56,15 @@ public final class LatexSvg {
      * @throws IllegalArgumentException naming jlatexmath's complaint when the formula cannot be typeset
      */
     public static synchronized Picture render(String tex, boolean display) {
+        String key = (display ? "D" : "T") + tex;
+        Picture cached = CACHE.get(key);
+        if (cached != null) return cached;
+        Picture p = typeset(tex, display);
+        CACHE.put(key, p);
+        return p;
+    }
+
+    private static Picture typeset(String tex, boolean display) {
         TeXIcon icon;
         try {
             icon = new TeXFormula(tex).createTeXIcon(display ? TeXConstants.STYLE_DISPLAY : TeXConstants.STYLE_TEXT, display ? DISPLAY_PX : INLINE_PX);

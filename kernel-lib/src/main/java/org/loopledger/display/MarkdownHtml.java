@@ -57,6 +57,8 @@ public final class MarkdownHtml {
     public static final Images DATA_URIS_ONLY = dest -> dest.regionMatches(true, 0, "data:", 0, 5) ? ImageData.fromDataUri(dest) : Optional.empty();
 
     private static final char OPEN = '\uE000', CLOSE = '\uE001';
+    /** Longest inline formula looked for: keeps the scan linear in the text's length whatever its dollars. */
+    static final int MAX_INLINE_MATH = 2000;
     private static final Pattern TOKEN = Pattern.compile(OPEN + "(\\d+)" + CLOSE);
     private static final Pattern SCHEME = Pattern.compile("^([A-Za-z][A-Za-z0-9+.-]*):");
     private static final Set<String> LINK_SCHEMES = Set.of("http", "https", "mailto");
@@ -196,12 +198,13 @@ public final class MarkdownHtml {
     /**
      * The closing {@code $} of inline math opened at {@code open}, by Pandoc's rule (which keeps prices such as
      * "$5 and $10" as text): no space after the opening dollar, none before the closing one, no digit after it,
-     * and no blank line in between. -1 when there is none.
+     * and no blank line in between; at most {@value #MAX_INLINE_MATH} characters on. -1 when there is none.
      */
     private static int closingDollar(String s, int open, boolean[] fenced) {
         int n = s.length();
         if (open + 1 >= n || Character.isWhitespace(s.charAt(open + 1))) return -1;
-        for (int j = open + 1; j < n; j++) {
+        int limit = Math.min(n, open + 1 + MAX_INLINE_MATH);
+        for (int j = open + 1; j < limit; j++) {
             char c = s.charAt(j);
             if (fenced[j]) return -1;
             if (c == '\\') {
