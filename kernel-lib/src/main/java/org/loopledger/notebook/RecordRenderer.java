@@ -60,6 +60,7 @@ public final class RecordRenderer {
             .addAttributes("th", "colspan", "rowspan", "class").addAttributes("td", "colspan", "rowspan", "class")
             .addAttributes("table", "class").addAttributes("tr", "class").addAttributes("span", "class").addAttributes("div", "class")
             .addAttributes("ul", "class").addAttributes("caption", "class")
+            .addTags("img").addAttributes("img", "src", "alt", "width", "height").addProtocols("img", "src", "data")
             .removeTags("a");
     /** Classes an HTML output may keep: the library's own output markup (display package), styled inside the output frame only. */
     private static final Pattern OUTPUT_CLASS = Pattern.compile("loopledger-[a-z0-9-]+|pass|fail");
@@ -298,7 +299,10 @@ public final class RecordRenderer {
         }
     }
 
-    /** An HTML output through the allow-list, keeping only the output classes that never match the record's own. */
+    /**
+     * An HTML output through the allow-list, keeping only the output classes that never match the record's own, and
+     * pictures only as embedded data URIs.
+     */
     static String sanitisedHtml(String html) {
         Document d = Jsoup.parseBodyFragment(Jsoup.clean(html, HTML_OUTPUTS));
         d.outputSettings().prettyPrint(false);
@@ -307,6 +311,11 @@ public final class RecordRenderer {
             if (kept.isEmpty()) e.removeAttr("class"); else e.attr("class", kept);
         }
         d.body().select("[id], [style]").forEach(e -> e.removeAttr("id").removeAttr("style"));
+        for (Element img : d.body().select("img")) {
+            // Only embeddable pictures whose bytes match their type; anything else would be a broken image or a fetch.
+            Optional<String> uri = ImageData.fromDataUri(img.attr("src"));
+            if (uri.isPresent()) img.attr("src", uri.get()); else img.replaceWith(new org.jsoup.nodes.TextNode("[image not shown: not an embedded picture]"));
+        }
         return d.body().html();
     }
 

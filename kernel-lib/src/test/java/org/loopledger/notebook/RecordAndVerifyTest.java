@@ -61,6 +61,17 @@ class RecordAndVerifyTest {
     }
 
     @Test
+    void htmlOutputsKeepEmbeddedPicturesOnly() {
+        String png = "iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8DwHwAFBQIAX8jx0gAAAABJRU5ErkJggg==";
+        String out = RecordRenderer.sanitisedHtml("<p>a<img src=\"data:image/png;base64," + png + "\" alt=\"dot\" onerror=\"x()\">"
+                + "<img src=\"http://192.0.2.1/beacon.png\"><img src=\"data:image/png;base64,PHN2Zz4=\"><img src=\"data:text/html,<script>x</script>\"></p>");
+        org.jsoup.nodes.Document d = org.jsoup.Jsoup.parseBodyFragment(out);
+        assertEquals(List.of("data:image/png;base64," + png), d.select("img").eachAttr("src"), out);
+        assertFalse(out.contains("onerror") || out.contains("192.0.2.1") || out.contains("script"), out);
+        assertEquals(3, out.split("image not shown", -1).length - 1, out);
+    }
+
+    @Test
     void specReportsAreSummarised() {
         String spec = "{\"title\":\"velocity loop\",\"rows\":[{\"requirement\":\"phase margin\",\"limit\":\">= 45 deg\",\"achieved\":\"52.1 deg\",\"at\":\"81 Hz\",\"pass\":true},"
                 + "{\"requirement\":\"Ms\",\"limit\":\"<= 1.6\",\"achieved\":\"1.71\",\"at\":\"140 Hz\",\"pass\":false}]}";
