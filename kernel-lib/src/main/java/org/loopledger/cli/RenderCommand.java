@@ -31,7 +31,7 @@ final class RenderCommand implements Callable<Integer> {
             Path target = output != null ? output : NotebookFiles.sibling(notebook, ".html");
             OutputTargets.check(target, OutputTargets.Kind.HTML, output != null ? "-o" : "the output", false, notebook);
             var info = NotebookRunner.recordInfo(nb, notebook.getFileName().toString(), System.getProperty("java.version"));
-            AtomicFiles.writeString(target, RecordRenderer.render(nb, info));
+            AtomicFiles.writeString(target, RecordRenderer.render(nb, info, notebook.toAbsolutePath().getParent()));
             System.err.println("loopledger: wrote record " + target);
             return 0;
         } catch (IllegalArgumentException e) {

@@ -83,7 +83,7 @@ final class RunCommand implements Callable<Integer> {
             }
             if (html != null) {
                 var info = NotebookRunner.recordInfo(out.executed(), notebook.getFileName().toString(), System.getProperty("java.version"));
-                AtomicFiles.writeString(html, RecordRenderer.render(out.executed(), info));
+                AtomicFiles.writeString(html, RecordRenderer.render(out.executed(), info, notebook.toAbsolutePath().getParent()));
                 System.err.println("loopledger: wrote record " + html);
             }
             if (stoppedEarly) {

@@ -1,15 +1,14 @@
 package org.loopledger.display;
 
-import org.commonmark.parser.Parser;
-import org.commonmark.renderer.html.HtmlRenderer;
-
 /**
- * Markdown text (CommonMark). Shown as text/markdown, with text/html from commonmark-java in which raw
- * HTML in the source is escaped rather than passed through, and the source itself as text/plain.
+ * Markdown text (CommonMark with GFM tables). Shown as text/markdown, with text/html from
+ * {@link MarkdownHtml#forNotebook()}: raw HTML in the source escaped, links only to http(s), mailto,
+ * fragments and relative paths (a {@code javascript:} or {@code data:} link keeps only its text), remote
+ * images as link text (never fetched), and {@code $...$} math left as TeX for the client's MathJax. The
+ * source itself is the text/plain.
  */
 public record Markdown(String source) implements Displayable {
-    private static final Parser PARSER = Parser.builder().build();
-    private static final HtmlRenderer HTML = HtmlRenderer.builder().escapeHtml(true).build();
+    private static final MarkdownHtml HTML = MarkdownHtml.forNotebook();
 
     public Markdown {
         if (source == null) throw new IllegalArgumentException("markdown source must not be null; pass \"\" for nothing");
@@ -19,9 +18,9 @@ public record Markdown(String source) implements Displayable {
         return new Markdown(source);
     }
 
-    /** The HTML rendering, raw HTML escaped. */
+    /** The HTML rendering (see the class comment for what is kept). */
     public String html() {
-        return HTML.render(PARSER.parse(source));
+        return HTML.render(source);
     }
 
     @Override

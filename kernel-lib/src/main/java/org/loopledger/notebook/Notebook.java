@@ -22,17 +22,4 @@ public record Notebook(int nbformatMinor, String metadataJson, List<Cell> cells)
 
     /** Same notebook with the given cells. */
     public Notebook withCells(List<Cell> newCells) { return new Notebook(nbformatMinor, metadataJson, newCells); }
-
-    /** The text of the first Markdown heading, or the fallback. */
-    public String title(String fallback) {
-        for (Cell c : cells) {
-            if (c instanceof Cell.Markdown md) {
-                for (String line : md.source().split("\n")) {
-                    String t = line.strip();
-                    if (t.startsWith("#")) return t.replaceFirst("^#+\\s*", "").strip();
-                }
-            }
-        }
-        return fallback;
-    }
 }

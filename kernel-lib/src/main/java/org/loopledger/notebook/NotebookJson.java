@@ -107,10 +107,27 @@ public final class NotebookJson {
                 if (c.has("outputs")) for (JsonElement oe : c.getAsJsonArray("outputs")) outs.add(output(oe.getAsJsonObject(), index, name));
                 yield new Cell.Code(id, source, count, outs, meta);
             }
-            case "markdown" -> new Cell.Markdown(id, source, meta);
-            case "raw" -> new Cell.Raw(id, source, meta);
+            case "markdown" -> new Cell.Markdown(id, source, meta, attachments(c, index, name));
+            case "raw" -> new Cell.Raw(id, source, meta, attachments(c, index, name));
             default -> throw new IllegalArgumentException(name + ": cell " + (index + 1) + " has unknown cell_type '" + type + "' (expected code, markdown or raw)");
         };
+    }
+
+    /** A cell's {@code attachments}: file name to MIME bundle (nbformat 4 schema), kept as stored. */
+    private static Map<String, Map<String, String>> attachments(JsonObject c, int index, String name) {
+        Map<String, Map<String, String>> a = new LinkedHashMap<>();
+        if (!c.has("attachments") || c.get("attachments").isJsonNull()) return a;
+        if (!c.get("attachments").isJsonObject()) {
+            throw new IllegalArgumentException(name + ": cell " + (index + 1) + " has 'attachments' that is not a JSON object (nbformat 4: file name to MIME bundle)");
+        }
+        for (var en : c.getAsJsonObject("attachments").entrySet()) {
+            if (!en.getValue().isJsonObject()) {
+                throw new IllegalArgumentException(name + ": cell " + (index + 1) + ", attachment '" + en.getKey()
+                        + "' is not a MIME bundle (a JSON object such as {\"image/png\": \"<base64>\"})");
+            }
+            a.put(en.getKey(), mime(en.getValue().getAsJsonObject()));
+        }
+        return a;
     }
 
     private static Output output(JsonObject o, int index, String name) {
@@ -201,6 +218,12 @@ public final class NotebookJson {
             o.add("outputs", outs);
         } else {
             o.addProperty("cell_type", c instanceof Cell.Markdown ? "markdown" : "raw");
+            Map<String, Map<String, String>> att = c instanceof Cell.Markdown md ? md.attachments() : ((Cell.Raw) c).attachments();
+            if (!att.isEmpty()) {
+                JsonObject a = new JsonObject();
+                att.forEach((file, bundle) -> a.add(file, mimeJson(bundle)));
+                o.add("attachments", a);
+            }
         }
         return o;
     }

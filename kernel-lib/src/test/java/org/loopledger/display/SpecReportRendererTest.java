@@ -63,9 +63,9 @@ class SpecReportRendererTest {
         assertEquals(4, checks.get(0).rows().size());
         assertFalse(checks.get(0).passed());
         Document d = Jsoup.parse(RecordRenderer.render(nb, new RecordInfo("s.ipynb", "2026-01-01", "0", "17", List.of())));
-        var summary = d.select("section.summary table.summary tr");
+        var summary = d.select("section.rec-summary table.rec-verdicts tr");
         assertEquals(1 + 4, summary.size(), "header plus one row per requirement");
-        assertTrue(d.select("section.summary").text().contains("1 not met"));
-        assertEquals("not met", d.select("section.summary tr:contains(sensitivity peak) td.fail").text());
+        assertTrue(d.select("section.rec-summary").text().contains("1 not met"));
+        assertEquals("not met", d.select("section.rec-summary tr:contains(sensitivity peak) td.rec-not-met").text());
     }
 }

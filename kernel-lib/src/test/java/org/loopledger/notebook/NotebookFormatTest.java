@@ -53,6 +53,46 @@ class NotebookFormatTest {
     }
 
     @Test
+    void markdownAndRawAttachmentsSurviveReadAndWrite(@TempDir Path dir) throws Exception {
+        PythonOracle.require("nbformat");
+        // Reference: Jupyter's nbformat writes the input (as JupyterLab stores a pasted image: base64 under its MIME type)
+        // and reads back what we wrote.
+        Path in = dir.resolve("in.ipynb"), out = dir.resolve("out.ipynb");
+        PythonOracle.run("""
+                import json, sys, nbformat
+                from nbformat.v4 import new_notebook, new_markdown_cell, new_raw_cell
+                p = json.load(sys.stdin)["path"]
+                nb = new_notebook(metadata={"kernelspec": {"name": "loopledger", "display_name": "Loopledger (Java)", "language": "java"}})
+                nb.cells.append(new_markdown_cell("![wiring](attachment:wiring.png)", attachments={
+                    "wiring.png": {"image/png": "iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8DwHwAFBQIAX8jx0gAAAABJRU5ErkJggg=="},
+                    "logo.svg": {"image/svg+xml": "<svg xmlns='http://www.w3.org/2000/svg' width='4' height='4'/>\\n"}}))
+                nb.cells.append(new_raw_cell("raw", attachments={"a.txt": {"text/plain": "line 1\\nline 2\\n"}}))
+                nbformat.write(nb, p)
+                print("{}")
+                """, Map.of("path", in.toString()));
+        NotebookJson.write(NotebookJson.read(in), out);
+        assertEquals(Files.readString(out), NotebookJson.toJson(NotebookJson.read(out)), "second round trip is byte-identical");
+        JsonElement r = PythonOracle.run("""
+                import json, sys, nbformat
+                d = json.load(sys.stdin)
+                a, b = nbformat.read(d["a"], as_version=4), nbformat.read(d["b"], as_version=4)
+                nbformat.validate(b)
+                print(json.dumps({"same": [c.get("attachments") == c2.get("attachments") for c, c2 in zip(a.cells, b.cells)],
+                                  "names": sorted(b.cells[0].attachments)}))
+                """, Map.of("a", in.toString(), "b", out.toString()));
+        assertEquals("[true,true]", r.getAsJsonObject().get("same").toString(), "attachments as nbformat reads them are unchanged");
+        assertEquals("[\"logo.svg\",\"wiring.png\"]", r.getAsJsonObject().get("names").toString());
+    }
+
+    @Test
+    void attachmentsThatAreNotMimeBundlesAreNamed() {
+        String json = "{\"nbformat\":4,\"nbformat_minor\":5,\"metadata\":{},\"cells\":[{\"cell_type\":\"markdown\",\"id\":\"m\",\"metadata\":{},"
+                + "\"source\":\"x\",\"attachments\":{\"a.png\":\"iVBOR\"}}]}";
+        var e = assertThrows(IllegalArgumentException.class, () -> NotebookJson.parse(json, "att.ipynb"));
+        assertTrue(e.getMessage().contains("att.ipynb: cell 1, attachment 'a.png'"), e.getMessage());
+    }
+
+    @Test
     void missingIdsBecomeStable() {
         String json = "{\"nbformat\":4,\"nbformat_minor\":4,\"metadata\":{},\"cells\":[{\"cell_type\":\"code\",\"source\":[\"1+1\"],\"metadata\":{},\"outputs\":[],\"execution_count\":null}]}";
         String a = NotebookJson.parse(json, "x").cells().get(0).id();

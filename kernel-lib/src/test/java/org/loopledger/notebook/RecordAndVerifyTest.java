@@ -42,6 +42,36 @@ class RecordAndVerifyTest {
     }
 
     @Test
+    void outputsCannotWearTheRecordsClassesAndTitleAndCautionAppearOnce() {
+        // The record's own markup is rec-*; an output keeps only the library's output classes (RecordTrustInBrowserTest
+        // checks the same in Chromium, computed styles included).
+        Notebook nb = new Notebook(5, "{}", List.of(
+                new Cell.Markdown("m", "# Axis Z\n\nIntro.\n\n> *Caution:* own words of this notebook.\n> Second line.\n\nMore.\n", "{}"),
+                new Cell.Code("x", "x", 1, List.of(new Output.DisplayData(Map.of("text/html",
+                        "<table class=\"rec-verdicts summary loopledger-table\" id=\"v\" style=\"color:red\"><tr><td class=\"rec-met pass\">met</td></tr></table>"), Map.of())), "{}")));
+        org.jsoup.nodes.Document d = org.jsoup.Jsoup.parse(RecordRenderer.render(nb, info()));
+        assertEquals(List.of("Axis Z"), d.select("h1").eachText(), "the notebook's heading is the record's title, once");
+        assertEquals(List.of("loopledger-table", "pass"), d.select(".rec-output [class]").eachAttr("class"));
+        assertTrue(d.select(".rec-output [id], .rec-output [style]").isEmpty());
+        assertTrue(d.select(".rec-caution").first().text().startsWith("Caution: own words of this notebook. Second line."), d.select(".rec-caution").first().text());
+        String text = d.body().text();
+        assertEquals(text.indexOf("own words"), text.lastIndexOf("own words"), "the notebook's caution once");
+        assertTrue(text.indexOf("Intro.") < text.indexOf("More."), text);
+        assertTrue(d.select(".rec-caution").last().text().contains("ISO 12100"), "the library's caution closes the record");
+    }
+
+    @Test
+    void htmlOutputsKeepEmbeddedPicturesOnly() {
+        String png = "iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR42mP8z8DwHwAFBQIAX8jx0gAAAABJRU5ErkJggg==";
+        String out = RecordRenderer.sanitisedHtml("<p>a<img src=\"data:image/png;base64," + png + "\" alt=\"dot\" onerror=\"x()\">"
+                + "<img src=\"http://192.0.2.1/beacon.png\"><img src=\"data:image/png;base64,PHN2Zz4=\"><img src=\"data:text/html,<script>x</script>\"></p>");
+        org.jsoup.nodes.Document d = org.jsoup.Jsoup.parseBodyFragment(out);
+        assertEquals(List.of("data:image/png;base64," + png), d.select("img").eachAttr("src"), out);
+        assertFalse(out.contains("onerror") || out.contains("192.0.2.1") || out.contains("script"), out);
+        assertEquals(3, out.split("image not shown", -1).length - 1, out);
+    }
+
+    @Test
     void specReportsAreSummarised() {
         String spec = "{\"title\":\"velocity loop\",\"rows\":[{\"requirement\":\"phase margin\",\"limit\":\">= 45 deg\",\"achieved\":\"52.1 deg\",\"at\":\"81 Hz\",\"pass\":true},"
                 + "{\"requirement\":\"Ms\",\"limit\":\"<= 1.6\",\"achieved\":\"1.71\",\"at\":\"140 Hz\",\"pass\":false}]}";

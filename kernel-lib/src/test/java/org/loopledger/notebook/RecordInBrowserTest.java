@@ -83,8 +83,9 @@ class RecordInBrowserTest {
     @Test
     void everyImageDecodesWithNonZeroSizeAndNothingIsFetched() {
         assertEquals(0, layout.getAsJsonArray("resources").size(), "a record fetches nothing: " + layout.get("resources"));
-        // Plots: Bode (overlay), FRF with coherence, and the hostile SVG image; nothing else renders as an image.
-        assertEquals(3, layout.getAsJsonArray("images").size(), layout.get("images").toString());
+        // The plant's transfer function typeset from its text/latex, plots: Bode (overlay), FRF with coherence, and the
+        // hostile SVG image; nothing else renders as an image.
+        assertEquals(4, layout.getAsJsonArray("images").size(), layout.get("images").toString());
         for (JsonElement e : layout.getAsJsonArray("images")) {
             JsonObject i = e.getAsJsonObject();
             assertEquals("img", i.get("tag").getAsString(), "plots are images, never inline SVG that could carry script: " + i);
@@ -92,7 +93,7 @@ class RecordInBrowserTest {
                     "image decoded: " + i);
             assertTrue(i.get("width").getAsDouble() > 0 && i.get("height").getAsDouble() > 0, "image laid out with a size: " + i);
         }
-        JsonObject bode = layout.getAsJsonArray("images").get(0).getAsJsonObject();
+        JsonObject bode = layout.getAsJsonArray("images").get(1).getAsJsonObject();
         assertEquals(640, bode.get("naturalWidth").getAsInt(), "the Bode SVG keeps its own width");
     }
 

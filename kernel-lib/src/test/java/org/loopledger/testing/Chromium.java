@@ -135,6 +135,7 @@ public final class Chromium {
               });
               out.title = d.title;
               out.text = d.body ? d.body.innerText : '';
+              try { out.probe = (%s)(d); } catch (err) { out.probe = {error: String(err)}; }
               document.getElementById('layout-result').textContent = JSON.stringify(out);
             });
             </script></body></html>
@@ -146,12 +147,21 @@ public final class Chromium {
      * prefix, complete, naturalWidth/Height, laid-out width/height of every img, svg, object, embed,
      * iframe, video, canvas), {@code resources} (every URL the page fetched), {@code scripts} (count
      * of script elements), {@code handlers} (every on* attribute), {@code title}, {@code text}
-     * (the page's visible text).
+     * (the page's visible text), {@code probe} (null).
      */
     public static JsonObject layout(Path work, Path page, int widthPx) {
+        return layout(work, page, widthPx, "function (d) { return null; }");
+    }
+
+    /**
+     * As {@link #layout(Path, Path, int)}, plus {@code probe}: what the JavaScript function {@code probeJs}
+     * returns when called with the record's document after load (JSON-serialisable; an exception it throws
+     * is reported as {@code {"error": ...}}). The function runs in the harness, never in the record.
+     */
+    public static JsonObject layout(Path work, Path page, int widthPx, String probeJs) {
         Path harness = page.toAbsolutePath().resolveSibling("harness-" + System.nanoTime() + ".html");
         try {
-            Files.writeString(harness, String.format(java.util.Locale.ROOT, HARNESS, page.getFileName().toString(), widthPx, 20000));
+            Files.writeString(harness, String.format(java.util.Locale.ROOT, HARNESS, page.getFileName().toString(), widthPx, 20000, probeJs));
             Run r = run(work, List.of("--allow-file-access-from-files", "--virtual-time-budget=10000", "--dump-dom",
                     "--window-size=" + (widthPx + 40) + ",1000"), harness.toUri().toString());
             Matcher m = RESULT.matcher(r.stdout());
