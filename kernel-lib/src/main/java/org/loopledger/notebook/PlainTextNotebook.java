@@ -100,6 +100,10 @@ public final class PlainTextNotebook {
         for (Cell.Code c : nb.codeCells()) if (!c.outputs().isEmpty()) withOutputs++;
         if (withOutputs > 0) r.add(withOutputs + " code cell(s) have stored outputs; the plain-text form keeps sources only "
                 + "(converting back into the same .ipynb keeps the outputs of unchanged cells)");
+        long withAttachments = nb.cells().stream().filter(c -> c instanceof Cell.Markdown m && !m.attachments().isEmpty()
+                || c instanceof Cell.Raw raw && !raw.attachments().isEmpty()).count();
+        if (withAttachments > 0) r.add(withAttachments + " Markdown or raw cell(s) have attachments (pictures pasted into the cell); the plain-text form "
+                + "does not hold them (converting back into the same .ipynb keeps them for cells whose id and source are unchanged)");
         JsonObject meta = JsonParser.parseString(nb.metadataJson()).getAsJsonObject();
         if (meta.has("loopledger")) r.add("the run record (metadata.loopledger: datasets read, run date) is not written; 'run' writes it again");
         return r;
@@ -218,10 +222,13 @@ public final class PlainTextNotebook {
     /**
      * The notebook {@code sources} with the stored outputs and run record of {@code stored} kept where they still
      * belong: a code cell keeps the outputs and execution count of the stored code cell at the same position among
-     * code cells when both sources are identical; every other code cell has none.
+     * code cells when both sources are identical; every other code cell has none. A Markdown or raw cell keeps the
+     * attachments of the stored cell with the same id and source.
      */
     public static Notebook withOutputsOf(Notebook sources, Notebook stored) {
         List<Cell.Code> old = stored.codeCells();
+        java.util.Map<String, Cell> storedById = new java.util.HashMap<>();
+        for (Cell c : stored.cells()) storedById.putIfAbsent(c.id(), c);
         List<Cell> cells = new ArrayList<>();
         int k = 0;
         for (Cell c : sources.cells()) {
@@ -233,7 +240,14 @@ public final class PlainTextNotebook {
                 }
                 k++;
             } else {
-                cells.add(c);
+                Cell before = storedById.get(c.id());
+                if (c instanceof Cell.Markdown md && before instanceof Cell.Markdown bm && bm.source().equals(md.source())) {
+                    cells.add(new Cell.Markdown(md.id(), md.source(), md.metadataJson(), bm.attachments()));
+                } else if (c instanceof Cell.Raw raw && before instanceof Cell.Raw br && br.source().equals(raw.source())) {
+                    cells.add(new Cell.Raw(raw.id(), raw.source(), raw.metadataJson(), br.attachments()));
+                } else {
+                    cells.add(c);
+                }
             }
         }
         JsonObject meta = JsonParser.parseString(sources.metadataJson()).getAsJsonObject();

@@ -97,6 +97,19 @@ class PlainTextNotebookTest {
     }
 
     @Test
+    void attachmentsComeBackWhenConvertingIntoTheSameNotebook() {
+        var png = java.util.Map.of("image/png", "iVBORw0KGgo=");
+        Notebook nb = new Notebook(5, PlainTextNotebook.DEFAULT_METADATA, List.of(
+                new Cell.Markdown("m1", "![wiring](attachment:wiring.png)", "{}", java.util.Map.of("wiring.png", png)),
+                new Cell.Code("c1", "1 + 1", null, List.of(), "{}")));
+        assertTrue(PlainTextNotebook.droppedOnFormat(nb).stream().anyMatch(s -> s.contains("attachments")));
+        Notebook back = PlainTextNotebook.parse(PlainTextNotebook.format(nb), "a.java");
+        assertEquals(java.util.Map.of(), ((Cell.Markdown) back.cells().get(0)).attachments());
+        Notebook merged = PlainTextNotebook.withOutputsOf(back, nb);
+        assertEquals(java.util.Map.of("wiring.png", png), ((Cell.Markdown) merged.cells().get(0)).attachments());
+    }
+
+    @Test
     void handWrittenFileWithWindowsLineEndingsAndBom() {
         String text = "\uFEFF" + PlainTextNotebook.FORMAT_LINE + "\r\n\r\n//## markdown\r\n// # Axis Y\r\n\r\n//## code\r\nint a = 1;\r\na + 1\r\n";
         Notebook nb = PlainTextNotebook.parse(text, "y.java");
