@@ -4,7 +4,10 @@ import java.util.ArrayDeque;
 
 
 /**
- * Drops points of a curve that a reader cannot see: iterative end-point-fit polyline simplification in
+ * Drops points of a curve that a reader cannot see. Long records whose x only grows (time logs) first
+ * keep, per pixel column, the first, lowest, highest and last point (the M4 aggregation of Jugel et al.,
+ * "M4: A Visualization-Oriented Time Series Data Aggregation", PVLDB 7(10), 2014: a line drawn through
+ * them covers the same pixels as the full record). Then iterative end-point-fit polyline simplification in
  * screen coordinates (U. Ramer, "An iterative procedure for the polygonal approximation of plane curves",
  * Computer Graphics and Image Processing 1(3), 1972): keep the point farthest from the chord while it
  * is farther than the tolerance, and recurse on both halves. Keeps plots small where curves are smooth
@@ -62,7 +65,8 @@ final class Decimation {
 
     /**
      * Simplifies (x, y) for a panel of the given pixel size and data ranges; log x when {@code logX}.
-     * Tolerance 0.25 px: below what anti-aliased rendering shows.
+     * Tolerance 0.25 px: below what anti-aliased rendering shows. Records with more than four points
+     * per pixel column and non-decreasing x go through {@link #perColumn} first.
      */
     static double[][] forPanel(double[] x, double[] y, boolean logX, double widthPx, double heightPx) {
         double[] sx = new double[x.length], sy = new double[y.length];
@@ -72,8 +76,48 @@ final class Decimation {
             sx[i] = (xv - xr[0]) / (xr[1] - xr[0]) * widthPx;
             sy[i] = (y[i] - yr[0]) / (yr[1] - yr[0]) * heightPx;
         }
+        if (x.length > 4 * widthPx && nonDecreasing(sx)) {
+            int[] cols = perColumn(sx, sy);
+            int[] idx = keep(pick(sx, cols), pick(sy, cols), 0.25);
+            int[] both = new int[idx.length];
+            for (int i = 0; i < idx.length; i++) both[i] = cols[idx[i]];
+            return new double[][] {pick(x, both), pick(y, both)};
+        }
         int[] idx = keep(sx, sy, 0.25);
         return new double[][] {pick(x, idx), pick(y, idx)};
+    }
+
+    /**
+     * Indices (ascending) of the first, lowest, highest and last point of every one-pixel column of
+     * screen x {@code sx} (non-decreasing); points with non-finite coordinates are kept as they break
+     * the line.
+     */
+    static int[] perColumn(double[] sx, double[] sy) {
+        int n = sx.length;
+        boolean[] kept = new boolean[n];
+        int start = 0;
+        while (start < n) {
+            if (!Double.isFinite(sx[start]) || !Double.isFinite(sy[start])) { kept[start++] = true; continue; }
+            long col = (long) Math.floor(sx[start]);
+            int end = start, lo = start, hi = start;
+            while (end + 1 < n && Double.isFinite(sx[end + 1]) && Double.isFinite(sy[end + 1]) && (long) Math.floor(sx[end + 1]) == col) {
+                end++;
+                if (sy[end] < sy[lo]) lo = end;
+                if (sy[end] > sy[hi]) hi = end;
+            }
+            kept[start] = kept[lo] = kept[hi] = kept[end] = true;
+            start = end + 1;
+        }
+        int count = 0;
+        for (boolean k : kept) if (k) count++;
+        int[] r = new int[count];
+        for (int i = 0, j = 0; i < n; i++) if (kept[i]) r[j++] = i;
+        return r;
+    }
+
+    private static boolean nonDecreasing(double[] v) {
+        for (int i = 1; i < v.length; i++) if (v[i] < v[i - 1]) return false;
+        return true;
     }
 
     private static double[] range(double[] v, boolean log) {
