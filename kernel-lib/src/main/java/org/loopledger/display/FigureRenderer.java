@@ -10,11 +10,10 @@ import javax.imageio.ImageIO;
 import javax.imageio.ImageWriteParam;
 import javax.imageio.ImageWriter;
 import javax.imageio.stream.MemoryCacheImageOutputStream;
+import java.awt.image.BufferedImage;
 import java.awt.image.RenderedImage;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.math.BigDecimal;
-import java.math.MathContext;
 import java.util.Base64;
 
 /**
@@ -30,7 +29,12 @@ import java.util.Base64;
  * vector form is {@link Figure#svg()}, for export.
  */
 public final class FigureRenderer {
-    /** MIME type of the plotted data (JSON: panels, each with series name, x and y). */
+    /**
+     * MIME type of the plotted data: JSON {@code {"title", "panels": [{"title", "x_axis", "y_axis",
+     * "series": [{"name", "x", "y"}]}]}}, where {@code x} and {@code y} are strings of numbers separated by
+     * spaces. Strings, not JSON arrays, because notebook files are written indented, one array element a
+     * line (nbformat does so too): a number array grows about threefold there, a string stays one line.
+     */
     public static final String PLOT_DATA_MIME = "application/vnd.loopledger.plot-data+json";
 
     /**
@@ -41,7 +45,6 @@ public final class FigureRenderer {
     static final int PLOT_DATA_DIGITS = 7;
 
     private static final Gson GSON = new Gson();
-    private static final MathContext DIGITS = new MathContext(PLOT_DATA_DIGITS);
 
     private FigureRenderer() {}
 
@@ -61,8 +64,15 @@ public final class FigureRenderer {
         return png(f.toImage(1.0));
     }
 
-    /** PNG bytes at the strongest deflate level (plots are flat colour: a third smaller than the default level). */
-    static byte[] png(RenderedImage img) throws IOException {
+    /**
+     * A palette PNG ({@link PaletteImage}: at most 256 colours, about half the bytes of RGB) at the strongest
+     * deflate level (plots are flat colour: a third smaller than the default level).
+     */
+    static byte[] png(BufferedImage img) throws IOException {
+        return encode(PaletteImage.of(img));
+    }
+
+    private static byte[] encode(RenderedImage img) throws IOException {
         ImageWriter w = ImageIO.getImageWritersByFormatName("png").next();
         ByteArrayOutputStream out = new ByteArrayOutputStream(64 * 1024);
         try (MemoryCacheImageOutputStream ios = new MemoryCacheImageOutputStream(out)) {
@@ -107,19 +117,42 @@ public final class FigureRenderer {
     private static String nz(String s) { return s == null ? "" : s; }
 
     private static void array(StringBuilder b, double[] v) {
-        b.append('[');
+        b.append('"');
         for (int i = 0; i < v.length; i++) {
-            if (i > 0) b.append(',');
+            if (i > 0) b.append(' ');
             b.append(rounded(v[i]));
         }
-        b.append(']');
+        b.append('"');
     }
 
     /** {@code v} to {@value #PLOT_DATA_DIGITS} significant digits, shortest form; 0 for a non-finite value (JSON has none). */
     static String rounded(double v) {
         if (!Double.isFinite(v) || v == 0) return "0";
-        BigDecimal d = new BigDecimal(v).round(DIGITS).stripTrailingZeros();
-        int exp = d.precision() - d.scale() - 1;
-        return exp >= -5 && exp < 10 ? d.toPlainString() : d.toString().replace("E+", "e").replace("E", "e");
+        double a = Math.abs(v);
+        int e = (int) Math.floor(Math.log10(a));
+        long m = Math.round(a * Math.pow(10, PLOT_DATA_DIGITS - 1 - e));
+        if (m >= 10_000_000L) { m = Math.round(m / 10.0); e++; }
+        else if (m < 1_000_000L) { e--; m = Math.round(a * Math.pow(10, PLOT_DATA_DIGITS - 1 - e)); }
+        int scale = PLOT_DATA_DIGITS - 1 - e; // value = m * 10^-scale
+        while (scale > 0 && m % 10 == 0) { m /= 10; scale--; }
+        StringBuilder b = new StringBuilder(16);
+        if (v < 0) b.append('-');
+        String digits = Long.toString(m);
+        if (e < -5 || e >= 10) {
+            b.append(digits.charAt(0));
+            if (digits.length() > 1) b.append('.').append(digits, 1, digits.length());
+            return b.append('e').append(e).toString();
+        }
+        if (scale <= 0) {
+            b.append(digits);
+            for (int i = 0; i < -scale; i++) b.append('0');
+        } else if (scale >= digits.length()) {
+            b.append("0.");
+            for (int i = digits.length(); i < scale; i++) b.append('0');
+            b.append(digits);
+        } else {
+            b.append(digits, 0, digits.length() - scale).append('.').append(digits, digits.length() - scale, digits.length());
+        }
+        return b.toString();
     }
 }
