@@ -4,9 +4,7 @@ import java.awt.image.BufferedImage;
 import java.awt.image.IndexColorModel;
 import java.util.ArrayList;
 import java.util.Arrays;
-import java.util.HashMap;
 import java.util.List;
-import java.util.Map;
 
 /**
  * A plot image reduced to at most 256 colours, for a palette PNG about half the size of an RGB one.
@@ -22,13 +20,14 @@ final class PaletteImage {
     static BufferedImage of(BufferedImage rgb) {
         int w = rgb.getWidth(), h = rgb.getHeight();
         int[] px = rgb.getRGB(0, 0, w, h, null, 0, w);
-        Map<Integer, Integer> hist = new HashMap<>();
-        for (int p : px) hist.merge(p & 0xFFFFFF, 1, Integer::sum);
-        int[] colours = hist.keySet().stream().mapToInt(Integer::intValue).sorted().toArray();
+        ColourTable hist = new ColourTable();
+        for (int p : px) hist.add(p & 0xFFFFFF);
+        int[] colours = hist.colours();
+        Arrays.sort(colours);
         int[] counts = new int[colours.length];
         for (int i = 0; i < colours.length; i++) counts[i] = hist.get(colours[i]);
         int[] palette = colours.length <= 256 ? colours : medianCut(colours, counts, 256);
-        Map<Integer, Integer> index = new HashMap<>();
+        ColourTable index = new ColourTable();
         for (int c : colours) index.put(c, nearest(palette, c));
         byte[] r = new byte[palette.length], g = new byte[palette.length], b = new byte[palette.length];
         for (int i = 0; i < palette.length; i++) { r[i] = (byte) (palette[i] >> 16); g[i] = (byte) (palette[i] >> 8); b[i] = (byte) palette[i]; }
@@ -37,11 +36,59 @@ final class PaletteImage {
         BufferedImage out = new BufferedImage(w, h, bits == 8 ? BufferedImage.TYPE_BYTE_INDEXED : BufferedImage.TYPE_BYTE_BINARY, cm);
         var raster = out.getRaster();
         int[] row = new int[w];
+        int last = -1, lastIndex = 0;
         for (int y = 0; y < h; y++) {
-            for (int x = 0; x < w; x++) row[x] = index.get(px[y * w + x] & 0xFFFFFF);
+            for (int x = 0; x < w; x++) {
+                int c = px[y * w + x] & 0xFFFFFF;
+                if (c != last) { last = c; lastIndex = index.get(c); }
+                row[x] = lastIndex;
+            }
             raster.setPixels(0, y, w, 1, row);
         }
         return out;
+    }
+
+    /** Colour (24-bit) to int, open addressing with linear probing; no boxing in the per-pixel loops. */
+    private static final class ColourTable {
+        private int[] keys = new int[4096], values = new int[4096];
+        private int size;
+
+        ColourTable() { Arrays.fill(keys, -1); }
+
+        private int slot(int c) {
+            int mask = keys.length - 1, i = (c * 0x9E3779B1 >>> 7) & mask;
+            while (keys[i] != -1 && keys[i] != c) i = (i + 1) & mask;
+            return i;
+        }
+
+        void add(int c) {
+            int i = slot(c);
+            if (keys[i] == -1) { keys[i] = c; size++; if (2 * size > keys.length) { grow(); i = slot(c); } }
+            values[i]++;
+        }
+
+        void put(int c, int v) {
+            int i = slot(c);
+            if (keys[i] == -1) { keys[i] = c; size++; if (2 * size > keys.length) { grow(); i = slot(c); } }
+            values[i] = v;
+        }
+
+        int get(int c) { int i = slot(c); return keys[i] == -1 ? 0 : values[i]; }
+
+        int[] colours() {
+            int[] r = new int[size];
+            int j = 0;
+            for (int k : keys) if (k != -1) r[j++] = k;
+            return r;
+        }
+
+        private void grow() {
+            int[] ok = keys, ov = values;
+            keys = new int[ok.length * 2];
+            values = new int[ok.length * 2];
+            Arrays.fill(keys, -1);
+            for (int i = 0; i < ok.length; i++) if (ok[i] != -1) { int s = slot(ok[i]); keys[s] = ok[i]; values[s] = ov[i]; }
+        }
     }
 
     private record Box(int from, int to, long population, int widestChannel, int range) {}
