@@ -28,7 +28,7 @@ record Axis(double lo, double hi, boolean log, double[] major, String[] labels, 
         double raw = (hi - lo) / target;
         double p = Math.pow(10, Math.floor(Math.log10(raw)));
         double m = raw / p;
-        double step = (m <= 1 ? 1 : m <= 2 ? 2 : m <= 5 ? 5 : 10) * p;
+        double step = (m < 1.5 ? 1 : m < 3.5 ? 2 : m < 7.5 ? 5 : 10) * p;
         int decimals = (int) Math.max(0, -Math.floor(Math.log10(step) + 1e-9));
         List<Double> ticks = new ArrayList<>();
         for (long k = (long) Math.ceil(lo / step - 1e-9); k * step <= hi + step * 1e-9; k++) ticks.add(k * step);
