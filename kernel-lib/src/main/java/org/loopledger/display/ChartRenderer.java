@@ -6,6 +6,7 @@ import de.erichseifert.vectorgraphics2d.VectorHints;
 import de.erichseifert.vectorgraphics2d.svg.SVGProcessor;
 import de.erichseifert.vectorgraphics2d.util.PageSize;
 import org.knowm.xchart.BitmapEncoder;
+import org.knowm.xchart.XYChart;
 import org.knowm.xchart.internal.chartpart.Chart;
 import org.knowm.xchart.style.AxesChartStyler;
 
@@ -21,19 +22,21 @@ import java.util.regex.Pattern;
 import java.util.stream.Collectors;
 
 /**
- * XChart charts as inline SVG (no XML declaration, no DOCTYPE, text kept as {@code <text>} rather than
- * glyph outlines, grid lines drawn solid because VectorGraphics2D writes every dash as its own shape),
- * a PNG fallback (base64; nbconvert's HTML export mangles SVG) and a one-line text description.
+ * XChart charts a user built: a PNG drawn by XChart (the user's own styling), the plotted data of an
+ * {@link XYChart} under {@link FigureRenderer#PLOT_DATA_MIME} (for {@code verify}, rounded as for our
+ * figures) and a one-line text description; no SVG in the bundle, for the reasons given in
+ * {@link FigureRenderer}. {@link #svg} still exports an SVG (VectorGraphics2D, no XML declaration, no
+ * DOCTYPE, grid lines drawn solid because VectorGraphics2D writes every dash as its own shape).
  * The output depends only on the chart: no ids, dates or random numbers.
  */
 public final class ChartRenderer {
     private ChartRenderer() {}
 
     public static MimeBundle render(Chart<?, ?> chart) throws IOException {
-        return MimeBundle.builder(describe(chart))
-                .put(MimeBundle.IMAGE_SVG, svg(chart))
-                .put(MimeBundle.IMAGE_PNG, Base64.getEncoder().encodeToString(png(chart)))
-                .build();
+        MimeBundle.Builder b = MimeBundle.builder(describe(chart))
+                .put(MimeBundle.IMAGE_PNG, Base64.getEncoder().encodeToString(png(chart)));
+        if (chart instanceof XYChart xy) b.put(FigureRenderer.PLOT_DATA_MIME, FigureRenderer.plotData(org.loopledger.plot.Figure.single(xy)));
+        return b.build();
     }
 
     /** One line: type, title, size and series names. */
@@ -59,7 +62,7 @@ public final class ChartRenderer {
 
     /** The chart as PNG bytes. */
     public static byte[] png(Chart<?, ?> chart) throws IOException {
-        return withSolidGrid(chart, () -> BitmapEncoder.getBitmapBytes(chart, BitmapEncoder.BitmapFormat.PNG));
+        return withSolidGrid(chart, () -> FigureRenderer.png(BitmapEncoder.getBufferedImage(chart)));
     }
 
     private static final Pattern CLIP_ID = Pattern.compile("clip(-?\\d+)");

@@ -1,85 +1,158 @@
 package org.loopledger.display;
 
-import com.google.gson.JsonArray;
-import com.google.gson.JsonObject;
-import de.erichseifert.vectorgraphics2d.Document;
-import de.erichseifert.vectorgraphics2d.VectorGraphics2D;
-import de.erichseifert.vectorgraphics2d.VectorHints;
-import de.erichseifert.vectorgraphics2d.svg.SVGProcessor;
-import de.erichseifert.vectorgraphics2d.util.PageSize;
+import com.google.gson.Gson;
 import org.knowm.xchart.XYChart;
 import org.knowm.xchart.XYSeries;
 import org.loopledger.plot.Figure;
 
+import javax.imageio.IIOImage;
 import javax.imageio.ImageIO;
+import javax.imageio.ImageWriteParam;
+import javax.imageio.ImageWriter;
+import javax.imageio.stream.MemoryCacheImageOutputStream;
+import java.awt.image.BufferedImage;
+import java.awt.image.RenderedImage;
 import java.io.ByteArrayOutputStream;
 import java.io.IOException;
-import java.nio.charset.StandardCharsets;
 import java.util.Base64;
 
 /**
- * A {@link Figure} as inline SVG (text kept as text, no prolog), a PNG fallback, and the data its
- * series draw under {@value #PLOT_DATA_MIME}, so that a reproducibility check compares plots through
- * their data and not their pixels. Deterministic: the same figure gives the same bytes.
+ * A {@link Figure} as a notebook output: a PNG and the data its series draw under {@value #PLOT_DATA_MIME}
+ * (so that {@code verify} compares plots through their data, not their pixels), plus one line of text.
+ * Deterministic: the same figure gives the same bytes.
+ *
+ * <p>No {@code image/svg+xml} in the bundle, on purpose: a PNG shows everywhere a notebook is read
+ * (Jupyter trusted and untrusted, where SVG counts as unsafe; GitHub and other viewers; and
+ * {@code jupyter nbconvert --to html} 6.5 as Debian ships it, whose {@code clean_html} filter strips every
+ * element inside an {@code <svg>} and so shows each SVG plot blank), while an SVG beside it would be
+ * chosen first by nbconvert and blank the plot there, and would store the figure a third time. The compact
+ * vector form is {@link Figure#svg()}, for export.
  */
 public final class FigureRenderer {
-    /** MIME type of the plotted data (JSON: panels, each with series name, x and y). */
+    /**
+     * MIME type of the plotted data: JSON {@code {"title", "panels": [{"title", "x_axis", "y_axis",
+     * "series": [{"name", "x", "y"}]}]}}, where {@code x} and {@code y} are strings of numbers separated by
+     * spaces. Strings, not JSON arrays, because notebook files are written indented, one array element a
+     * line (nbformat does so too): a number array grows about threefold there, a string stays one line.
+     */
     public static final String PLOT_DATA_MIME = "application/vnd.loopledger.plot-data+json";
+
+    /**
+     * Significant digits of the stored plot data: {@code verify}'s default relative tolerance is 1e-6, and
+     * a value rounded to 7 digits moves by at most half a unit in the 7th digit (under 5e-7 relative), so
+     * rounding never turns agreement into a difference, and no plot shows a difference that small.
+     */
+    static final int PLOT_DATA_DIGITS = 7;
+
+    private static final Gson GSON = new Gson();
 
     private FigureRenderer() {}
 
     public static MimeBundle render(Figure f) throws IOException {
         return MimeBundle.builder(f.toString())
-                .put(MimeBundle.IMAGE_SVG, svg(f))
                 .put(MimeBundle.IMAGE_PNG, Base64.getEncoder().encodeToString(png(f)))
                 .put(PLOT_DATA_MIME, plotData(f))
                 .build();
     }
 
-    public static String svg(Figure f) throws IOException {
-        VectorGraphics2D g = new VectorGraphics2D();
-        g.setRenderingHint(VectorHints.KEY_TEXT, VectorHints.VALUE_TEXT_DEFAULT);
-        f.paint(g);
-        Document doc = new SVGProcessor().getDocument(g.getCommands(), new PageSize(0, 0, f.widthPx(), f.heightPx()));
-        ByteArrayOutputStream out = new ByteArrayOutputStream(64 * 1024);
-        doc.writeTo(out);
-        return ChartRenderer.stripProlog(out.toString(StandardCharsets.UTF_8));
+    /** The figure as compact SVG (see {@link Figure#svg()}), for export; not part of the notebook output. */
+    public static String svg(Figure f) {
+        return f.svg();
     }
 
     public static byte[] png(Figure f) throws IOException {
+        return png(f.toImage(1.0));
+    }
+
+    /**
+     * A palette PNG ({@link PaletteImage}: at most 256 colours, about half the bytes of RGB) at the strongest
+     * deflate level (plots are flat colour: a third smaller than the default level).
+     */
+    static byte[] png(BufferedImage img) throws IOException {
+        return encode(PaletteImage.of(img));
+    }
+
+    private static byte[] encode(RenderedImage img) throws IOException {
+        ImageWriter w = ImageIO.getImageWritersByFormatName("png").next();
         ByteArrayOutputStream out = new ByteArrayOutputStream(64 * 1024);
-        ImageIO.write(f.toImage(1.0), "png", out);
+        try (MemoryCacheImageOutputStream ios = new MemoryCacheImageOutputStream(out)) {
+            w.setOutput(ios);
+            ImageWriteParam p = w.getDefaultWriteParam();
+            if (p.canWriteCompressed()) {
+                p.setCompressionMode(ImageWriteParam.MODE_EXPLICIT);
+                p.setCompressionQuality(0.0f);
+            }
+            w.write(null, new IIOImage(img, null, null), p);
+        } finally {
+            w.dispose();
+        }
         return out.toByteArray();
     }
 
-    /** The series each panel draws, as JSON text. */
+    /** The series each panel draws, as JSON text, numbers to {@value #PLOT_DATA_DIGITS} significant digits. */
     public static String plotData(Figure f) {
-        JsonObject root = new JsonObject();
-        root.addProperty("title", f.title());
-        JsonArray panels = new JsonArray();
+        StringBuilder b = new StringBuilder(16 * 1024);
+        b.append("{\"title\":").append(GSON.toJson(f.title())).append(",\"panels\":[");
+        boolean firstPanel = true;
         for (XYChart c : f.panels()) {
-            JsonObject p = new JsonObject();
-            p.addProperty("title", c.getTitle());
-            p.addProperty("x_axis", c.getXAxisTitle());
-            p.addProperty("y_axis", c.getYAxisTitle());
-            JsonArray series = new JsonArray();
+            if (!firstPanel) b.append(',');
+            firstPanel = false;
+            b.append("{\"title\":").append(GSON.toJson(nz(c.getTitle()))).append(",\"x_axis\":").append(GSON.toJson(nz(c.getXAxisTitle())))
+                    .append(",\"y_axis\":").append(GSON.toJson(nz(c.getYAxisTitle()))).append(",\"series\":[");
+            boolean firstSeries = true;
             for (XYSeries s : c.getSeriesMap().values()) {
-                JsonObject so = new JsonObject();
-                so.addProperty("name", s.getName());
-                so.add("x", array(s.getXData()));
-                so.add("y", array(s.getYData()));
-                series.add(so);
+                if (!firstSeries) b.append(',');
+                firstSeries = false;
+                b.append("{\"name\":").append(GSON.toJson(s.getName())).append(",\"x\":");
+                array(b, s.getXData());
+                b.append(",\"y\":");
+                array(b, s.getYData());
+                b.append('}');
             }
-            p.add("series", series);
-            panels.add(p);
+            b.append("]}");
         }
-        root.add("panels", panels);
-        return root.toString();
+        return b.append("]}").toString();
     }
 
-    private static JsonArray array(double[] v) {
-        JsonArray a = new JsonArray(v.length);
-        for (double d : v) a.add(Double.isFinite(d) ? (Number) d : (Number) 0.0);
-        return a;
+    private static String nz(String s) { return s == null ? "" : s; }
+
+    private static void array(StringBuilder b, double[] v) {
+        b.append('"');
+        for (int i = 0; i < v.length; i++) {
+            if (i > 0) b.append(' ');
+            b.append(rounded(v[i]));
+        }
+        b.append('"');
+    }
+
+    /** {@code v} to {@value #PLOT_DATA_DIGITS} significant digits, shortest form; 0 for a non-finite value (JSON has none). */
+    static String rounded(double v) {
+        if (!Double.isFinite(v) || v == 0) return "0";
+        double a = Math.abs(v);
+        int e = (int) Math.floor(Math.log10(a));
+        long m = Math.round(a * Math.pow(10, PLOT_DATA_DIGITS - 1 - e));
+        if (m >= 10_000_000L) { m = Math.round(m / 10.0); e++; }
+        else if (m < 1_000_000L) { e--; m = Math.round(a * Math.pow(10, PLOT_DATA_DIGITS - 1 - e)); }
+        int scale = PLOT_DATA_DIGITS - 1 - e; // value = m * 10^-scale
+        while (scale > 0 && m % 10 == 0) { m /= 10; scale--; }
+        StringBuilder b = new StringBuilder(16);
+        if (v < 0) b.append('-');
+        String digits = Long.toString(m);
+        if (e < -5 || e >= 10) {
+            b.append(digits.charAt(0));
+            if (digits.length() > 1) b.append('.').append(digits, 1, digits.length());
+            return b.append('e').append(e).toString();
+        }
+        if (scale <= 0) {
+            b.append(digits);
+            for (int i = 0; i < -scale; i++) b.append('0');
+        } else if (scale >= digits.length()) {
+            b.append("0.");
+            for (int i = digits.length(); i < scale; i++) b.append('0');
+            b.append(digits);
+        } else {
+            b.append(digits, 0, digits.length() - scale).append('.').append(digits, digits.length() - scale, digits.length());
+        }
+        return b.toString();
     }
 }

@@ -2,21 +2,18 @@ package org.loopledger.plot;
 
 import org.knowm.xchart.XYChart;
 
-import java.awt.Color;
-import java.awt.Font;
 import java.awt.Graphics2D;
-import java.awt.RenderingHints;
-import java.awt.geom.AffineTransform;
 import java.awt.image.BufferedImage;
 import java.util.List;
 
 /**
- * One or more XChart panels laid out on a grid (row by row) under an optional title: a Bode plot is
- * two panels in one column, a Gang of Four panel four in two columns. Rendering to SVG and PNG is the
- * display layer's job; a figure only knows how to paint itself.
+ * One or more panels laid out on a grid (row by row) under an optional title: a Bode plot is two panels
+ * in one column, a Gang of Four panel four in two columns. Each panel is described by an XChart
+ * {@link XYChart} (series, colours, strokes, axis titles, log axes, fixed ranges, legend); the figure
+ * draws itself with its own layout ({@code FigureDrawing}) as compact SVG ({@link #svg()}) or on a
+ * Java2D surface ({@link #paint}, {@link #toImage}), so both show the same picture.
  */
 public final class Figure {
-    private static final int TITLE_PX = 24;
     private final String title;
     private final List<XYChart> panels;
     private final int columns;
@@ -47,11 +44,11 @@ public final class Figure {
 
     private int rows() { return (panels.size() + columns - 1) / columns; }
 
-    private int cellWidth() { return panels.stream().mapToInt(XYChart::getWidth).max().orElse(600); }
+    int cellWidth() { return panels.stream().mapToInt(XYChart::getWidth).max().orElse(600); }
 
-    private int cellHeight() { return panels.stream().mapToInt(XYChart::getHeight).max().orElse(300); }
+    int cellHeight() { return panels.stream().mapToInt(XYChart::getHeight).max().orElse(300); }
 
-    private int titleHeight() { return title.isEmpty() ? 0 : TITLE_PX; }
+    private int titleHeight() { return title.isEmpty() ? 0 : FigureDrawing.TITLE_PX; }
 
     public int widthPx() { return columns * cellWidth(); }
 
@@ -59,23 +56,17 @@ public final class Figure {
 
     /** Paints the whole figure at (0, 0) with size {@link #widthPx()} x {@link #heightPx()}. */
     public void paint(Graphics2D g) {
-        g.setRenderingHint(RenderingHints.KEY_ANTIALIASING, RenderingHints.VALUE_ANTIALIAS_ON);
-        g.setColor(Color.WHITE);
-        g.fillRect(0, 0, widthPx(), heightPx());
-        if (!title.isEmpty()) {
-            g.setColor(Palette.INK);
-            g.setFont(new Font(Font.SANS_SERIF, Font.BOLD, 13));
-            g.drawString(title, 8, 17);
-        }
-        AffineTransform base = g.getTransform();
-        for (int i = 0; i < panels.size(); i++) {
-            int col = i % columns, row = i / columns;
-            g.setTransform(base);
-            g.translate(col * cellWidth(), titleHeight() + row * cellHeight());
-            XYChart c = panels.get(i);
-            c.paint(g, c.getWidth(), c.getHeight());
-        }
-        g.setTransform(base);
+        FigureDrawing.draw(this, new RasterCanvas(g));
+    }
+
+    /**
+     * The figure as an SVG element (no XML prolog): one {@code <path>} per series, text as {@code <text>},
+     * coordinates to a tenth of a pixel. The same figure gives the same bytes.
+     */
+    public String svg() {
+        SvgCanvas c = new SvgCanvas(widthPx(), heightPx());
+        FigureDrawing.draw(this, c);
+        return c.document();
     }
 
     /** A raster image of the figure at {@code scale} (1 = one pixel per point). */

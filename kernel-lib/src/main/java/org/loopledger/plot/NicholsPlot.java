@@ -47,7 +47,7 @@ public final class NicholsPlot {
             Frf l = loops.get(i);
             double[] ph = PlotPhase.forDisplayDeg(l.phaseDegUnwrapped());
             double[] db = l.magnitudeDb();
-            double[][] d = Decimation.forPanel(ph, db, false, 640, 480);
+            double[][] d = Decimation.forPanel(ph, db, false, 640, 480, new double[] {-360, 0}, new double[] {-40, 40});
             ChartStyle.curve(c, labels.get(i), d[0], d[1], i);
         }
         ChartStyle.markers(c, "critical point", new double[] {-180}, new double[] {0}, Palette.BRICK, false);

@@ -58,7 +58,7 @@ public final class NyquistPlot {
         for (int i = 0; i < loops.size(); i++) {
             Frf l = loops.get(i);
             double[] re = clip(l.real()), im = clip(l.imag());
-            double[][] d = Decimation.forPanel(re, im, false, 520, 520);
+            double[][] d = Decimation.forPanel(re, im, false, 520, 520, new double[] {-0.5 - halfWidth, -0.5 + halfWidth}, new double[] {-halfWidth, halfWidth});
             ChartStyle.curve(c, labels.get(i), d[0], d[1], i);
             double[] mirror = d[1].clone();
             for (int k = 0; k < mirror.length; k++) mirror[k] = -mirror[k];

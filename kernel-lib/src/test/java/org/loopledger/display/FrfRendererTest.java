@@ -1,6 +1,5 @@
 package org.loopledger.display;
 
-import com.google.gson.JsonArray;
 import com.google.gson.JsonObject;
 import com.google.gson.JsonParser;
 import org.junit.jupiter.api.Test;
@@ -31,15 +30,20 @@ class FrfRendererTest {
 
     /** Linear interpolation in log x of a plotted series. */
     private static double readAt(JsonObject series, double x) {
-        JsonArray xs = series.getAsJsonArray("x"), ys = series.getAsJsonArray("y");
-        for (int i = 1; i < xs.size(); i++) {
-            double x0 = xs.get(i - 1).getAsDouble(), x1 = xs.get(i).getAsDouble();
+        double[] xs = numbers(series, "x"), ys = numbers(series, "y");
+        for (int i = 1; i < xs.length; i++) {
+            double x0 = xs[i - 1], x1 = xs[i];
             if (x1 >= x) {
                 double t = (Math.log(x) - Math.log(x0)) / (Math.log(x1) - Math.log(x0));
-                return ys.get(i - 1).getAsDouble() + t * (ys.get(i).getAsDouble() - ys.get(i - 1).getAsDouble());
+                return ys[i - 1] + t * (ys[i] - ys[i - 1]);
             }
         }
         throw new AssertionError(x + " outside the plotted range");
+    }
+
+    /** A series' coordinates: plot data stores them as one string of numbers separated by spaces. */
+    static double[] numbers(JsonObject series, String axis) {
+        return java.util.Arrays.stream(series.get(axis).getAsString().split(" ")).mapToDouble(Double::parseDouble).toArray();
     }
 
     private static JsonObject series(JsonObject plotData, int panel, String name) {
@@ -52,7 +56,7 @@ class FrfRendererTest {
     @Test
     void frfIsABodeFigureWhoseDataPutMinus3dbAtTheCorner() throws Exception {
         MimeBundle b = Bundles.of(Frf.ofModel(LAG, FrequencyGrid.logHz(0.001, 100, 500)));
-        assertEquals(List.of(MimeBundle.TEXT_PLAIN, MimeBundle.IMAGE_SVG, MimeBundle.IMAGE_PNG, FigureRenderer.PLOT_DATA_MIME), List.copyOf(b.data().keySet()));
+        assertEquals(List.of(MimeBundle.TEXT_PLAIN, MimeBundle.IMAGE_PNG, FigureRenderer.PLOT_DATA_MIME), List.copyOf(b.data().keySet()));
         assertTrue(b.plainText().startsWith("Frf[500 points"), b.plainText());
         JsonObject data = JsonParser.parseString(b.get(FigureRenderer.PLOT_DATA_MIME).orElseThrow()).getAsJsonObject();
         assertEquals(2, data.getAsJsonArray("panels").size(), "magnitude and phase, no coherence panel without coherence");
@@ -72,9 +76,9 @@ class FrfRendererTest {
         JsonObject data = JsonParser.parseString(b.get(FigureRenderer.PLOT_DATA_MIME).orElseThrow()).getAsJsonObject();
         assertEquals(3, data.getAsJsonArray("panels").size());
         assertEquals("Coherence", data.getAsJsonArray("panels").get(2).getAsJsonObject().get("y_axis").getAsString());
-        JsonArray y = series(data, 2, FrfRenderer.LABEL).getAsJsonArray("y");
-        assertEquals(0.5, y.get(0).getAsDouble(), 1e-12, "first coherence point drawn as given");
-        assertEquals(1.0, y.get(y.size() - 1).getAsDouble(), 1e-12, "last coherence point drawn as given");
+        double[] y = numbers(series(data, 2, FrfRenderer.LABEL), "y");
+        assertEquals(0.5, y[0], 1e-12, "first coherence point drawn as given");
+        assertEquals(1.0, y[y.length - 1], 1e-12, "last coherence point drawn as given");
         BufferedImage png = ImageIO.read(new ByteArrayInputStream(Base64.getDecoder().decode(b.get(MimeBundle.IMAGE_PNG).orElseThrow())));
         assertEquals(FrfRenderer.figure(f.withCoherence(coh)).heightPx(), png.getHeight());
         assertTrue(png.getHeight() > 3 * 200, "three panels stacked: " + png.getHeight() + " px");
@@ -84,14 +88,16 @@ class FrfRendererTest {
     void bodeSvgOfAResonantAxisIsSmallWellFormedAndByteIdenticalTwice() throws Exception {
         Frf f = twoMass();
         MimeBundle a = Bundles.of(f), b = Bundles.of(twoMass());
-        String svg = a.get(MimeBundle.IMAGE_SVG).orElseThrow();
-        System.out.println("SVG of a Bode figure (2 panels, 640x520 px, 2000-point two-mass FRF): " + svg.length() + " bytes; PNG "
-                + Base64.getDecoder().decode(a.get(MimeBundle.IMAGE_PNG).orElseThrow()).length + " bytes");
-        assertTrue(svg.length() < 150_000, "issue 5 budget: one plot under 150 KB, got " + svg.length());
-        assertTrue(svg.startsWith("<svg"), "no prolog inside a MIME bundle");
+        String svg = FigureRenderer.svg(FrfRenderer.figure(f));
+        System.out.println("SVG of a Bode figure (2 panels, 640x544 px, 2000-point two-mass FRF): " + svg.length() + " bytes; PNG "
+                + Base64.getDecoder().decode(a.get(MimeBundle.IMAGE_PNG).orElseThrow()).length + " bytes; bundle " + a.toJson().length() + " bytes");
+        assertTrue(svg.length() < 30_000, "issue 11: one path per series, text as text; got " + svg.length() + " bytes");
+        assertTrue(a.toJson().length() < 150_000, "issue 11: the stored figure under 150 KB, got " + a.toJson().length());
+        assertTrue(svg.startsWith("<svg"), "no prolog");
         var dbf = DocumentBuilderFactory.newInstance();
         dbf.setNamespaceAware(true);
         assertEquals("svg", dbf.newDocumentBuilder().parse(new ByteArrayInputStream(svg.getBytes(StandardCharsets.UTF_8))).getDocumentElement().getLocalName());
+        assertEquals(svg, FigureRenderer.svg(FrfRenderer.figure(twoMass())), "SVG differs between two renders");
         for (String mime : a.data().keySet()) assertEquals(a.data().get(mime), b.data().get(mime), mime + " differs between two renders");
     }
 }
