@@ -168,8 +168,8 @@ final class DelimitedText {
             cap = (int) Math.min(Integer.MAX_VALUE - 16, Math.max(1024, est + est / 16 + 64));
         }
         double[][] cols = new double[nc][cap];
-        int[] resExp = new int[nc];
-        Arrays.fill(resExp, Integer.MIN_VALUE);
+        // histogram of each column's printed resolution 10^e, e in [-40, 23]
+        int[][] resHist = new int[nc][64];
         int rows = 0;
         int firstDataLine = L.lineNo;
         boolean contiguous = true;
@@ -201,7 +201,8 @@ final class DelimitedText {
                     v = slow(source, L, f, fs[c], fe[c], dc, c, names, sep);
                 } else {
                     v = num.value;
-                    if (num.resExp > resExp[c]) resExp[c] = num.resExp;
+                    int h = num.resExp + 40;
+                    if (h >= 0 && h < 64) resHist[c][h]++;
                 }
                 cols[c][rows] = v;
             }
@@ -210,9 +211,19 @@ final class DelimitedText {
         double[] resolution = new double[nc];
         for (int c = 0; c < nc; c++) {
             if (cols[c].length != rows) cols[c] = Arrays.copyOf(cols[c], rows);
-            resolution[c] = resExp[c] == Integer.MIN_VALUE ? 0 : Math.pow(10, resExp[c]);
+            resolution[c] = resolution(resHist[c], rows);
         }
         return new Table(names, cols, rows, firstDataLine, contiguous, meta, comments, resolution, sep, dc, headerLine);
+    }
+
+    /**
+     * The column's print resolution: the coarsest 10^e that at least a tenth of the cells show (fixed
+     * notation such as {@code %.6f} gives one e for all; {@code %g} drops trailing zeros, so a few cells
+     * look coarser than the format is); 0 when unknown.
+     */
+    private static double resolution(int[] hist, int rows) {
+        for (int h = 63; h >= 0; h--) if (hist[h] > 0 && hist[h] >= rows / 10) return Double.parseDouble("1e" + (h - 40));
+        return 0;
     }
 
     // ---- fields and names ----

@@ -112,15 +112,22 @@ public final class LogChecks {
         double stated = o.expectedSampleRateHz();
         double fromTime = rateFromTimeHz(t);
         double median = medianOfSample(t);
+        if (!Double.isNaN(stated) && Math.abs(fromTime - stated) / stated > o.jitterErrorFraction()) {
+            issues.add(new LogIssue(LogIssue.Severity.ERROR, LogColumns.TIME, 0, String.format(Locale.ROOT,
+                    "the time column gives %.6g Hz (span over count), which does not match the stated sample rate %.6g Hz; check the rate or the time unit "
+                            + "(time in ms under a time_s header? rename it time_ms)", fromTime, stated)));
+            return;
+        }
         double nominal = Double.isNaN(stated) ? 1 / fromTime : 1 / stated;
         // rounding of the printed timestamps moves a single step by up to one resolution; plus float error of the subtraction
         double allow = res * (1 + 1e-9) + 4 * Math.ulp(Math.max(Math.abs(t[0]), Math.abs(t[n - 1])));
         int gapRow = -1, gaps = 0, jitErrRow = -1, jitErr = 0, jitWarnRow = -1, jitWarn = 0;
-        double worst = 0, gapStep = 0, errStep = 0;
+        double worst = 0, gapStep = 0, errStep = 0, worstRaw = 0;
         double gapLimit = o.gapFactor() * Math.min(median, nominal) + allow;
         for (int i = 1; i < n; i++) {
             double d = t[i] - t[i - 1];
             if (!Double.isFinite(d)) continue;
+            worstRaw = Math.max(worstRaw, Math.abs(d - nominal));
             double dev = Math.max(0, Math.abs(d - nominal) - allow) / nominal;
             worst = Math.max(worst, dev);
             if (d > gapLimit) { if (gapRow < 0) { gapRow = i + 1; gapStep = d; } gaps++; }
@@ -145,32 +152,27 @@ public final class LogChecks {
                     "jitter: %d time step(s) deviate more than %.1f %% from the nominal %.6g s (worst %.2f %%); spectra assume regular sampling",
                     jitWarn, 100 * o.jitterWarningFraction(), nominal, 100 * worst)));
         }
-        if (res > 0) {
-            double q = nominal / res;
-            if (Math.abs(q - Math.rint(q)) > 1e-6 * q && res / nominal > 1e-6) {
-                issues.add(new LogIssue(LogIssue.Severity.WARNING, LogColumns.TIME, 0, String.format(Locale.ROOT,
-                        "timestamps are printed to %.3g s, %.3g %% of the %.6g s step: single steps are off by up to that, so the rate is %s "
-                                + "(the median step would give %.6g Hz); export time with more digits or state the rate",
-                        res, 100 * res / nominal, nominal,
-                        Double.isNaN(stated) ? String.format(Locale.ROOT, "the span over the count, %.8g Hz", fromTime) : String.format(Locale.ROOT, "the stated %.8g Hz", stated),
-                        1 / median)));
-            }
+        if (res > 0 && worstRaw > 64 * Math.ulp(Math.abs(t[n - 1])) && worstRaw <= allow) {
+            issues.add(new LogIssue(LogIssue.Severity.WARNING, LogColumns.TIME, 0, String.format(Locale.ROOT,
+                    "timestamps are printed to %.3g s, %.3g %% of the %.6g s step: single steps are off by up to that, so the rate is %s "
+                            + "(the median step would give %.6g Hz); export time with more digits or state the rate",
+                    res, 100 * res / nominal, nominal,
+                    Double.isNaN(stated) ? String.format(Locale.ROOT, "the span over the count, %.8g Hz", fromTime) : String.format(Locale.ROOT, "the stated %.8g Hz", stated),
+                    1 / median)));
         }
         if (!Double.isNaN(stated)) {
             double rel = Math.abs(fromTime - stated) / stated;
             if (rel > o.jitterErrorFraction()) {
-                issues.add(new LogIssue(LogIssue.Severity.ERROR, LogColumns.TIME, 0, String.format(Locale.ROOT,
-                        "the time column gives %.6g Hz (span over count), which does not match the stated sample rate %.6g Hz; check the rate or the time unit "
-                                + "(time in ms under a time_s header? rename it time_ms)", fromTime, stated)));
+                // reported before the step checks, which would only repeat it
             } else if (rel > Math.max(1e-4, 2 * res * fromTime / (n - 1))) {
                 issues.add(new LogIssue(LogIssue.Severity.WARNING, LogColumns.TIME, 0, String.format(Locale.ROOT,
                         "the time column gives %.8g Hz, %.3g %% from the stated %.8g Hz; the stated rate is used", fromTime, 100 * rel, stated)));
             }
         } else if (fromTime < o.minimumPlausibleRateHz()) {
             issues.add(new LogIssue(LogIssue.Severity.ERROR, LogColumns.TIME, 0, String.format(Locale.ROOT,
-                    "the time column gives %.6g Hz, below the %.6g Hz expected of a drive log: time in milliseconds under a time_s header? "
+                    "the time column gives %s Hz, below the %s Hz expected of a drive log: time in milliseconds under a time_s header? "
                             + "rename the column time_ms (or map it with LogUnit.milliseconds()), or state the rate with LogCheckOptions.withSampleRateHz(...); "
-                            + "for a slow log lower the limit with withMinimumPlausibleRateHz(...)", fromTime, o.minimumPlausibleRateHz())));
+                            + "for a slow log lower the limit with withMinimumPlausibleRateHz(...)", LogUnit.fmt(fromTime), LogUnit.fmt(o.minimumPlausibleRateHz()))));
         }
     }
 
