@@ -39,6 +39,8 @@ final class BenchCommand implements Callable<Integer> {
                 return RunnerBench.run(notebook, rounds, System.out);
             case "tune":
                 return org.loopledger.tune.bench.TuneBench.run(System.out);
+            case "logs":
+                return org.loopledger.ident.bench.LogBench.run(System.out);
             case "spectral":
                 org.loopledger.ident.bench.SpectralBench.main(new String[0]);
                 return 0;

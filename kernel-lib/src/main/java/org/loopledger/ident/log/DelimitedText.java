@@ -186,25 +186,20 @@ final class DelimitedText {
                 else if (!text.isEmpty()) comments.add(text);
                 continue;
             }
-            int n = splitBytes(L.buf, L.ls, L.le, sep, fs, fe, nc + 1);
-            if (n != nc) {
-                String line = decode(source, L, dec, f);
-                throw new IllegalArgumentException(fieldCountMessage(source, L.lineNo, line, n, nc, names, sep, f.separatorChar() == 0));
-            }
             if (rows == cap) {
                 cap = cap + Math.max(1024, cap >> 2);
                 for (int c = 0; c < nc; c++) cols[c] = Arrays.copyOf(cols[c], cap);
             }
-            for (int c = 0; c < nc; c++) {
-                double v;
-                if (!parse(L.buf, fs[c], fe[c], dot, num)) {
-                    v = slow(source, L, f, fs[c], fe[c], dc, c, names, sep);
-                } else {
-                    v = num.value;
-                    int h = num.resExp + 40;
-                    if (h >= 0 && h < 64) resHist[c][h]++;
-                }
-                cols[c][rows] = v;
+            int bad = row(L.buf, L.ls, L.le, sep, dot, fs, fe, cols, rows, resHist, num);
+            if (bad == -2) {
+                String line = decode(source, L, dec, f);
+                int n = splitBytes(L.buf, L.ls, L.le, sep, fs, fe, nc + 1);
+                throw new IllegalArgumentException(fieldCountMessage(source, L.lineNo, line, n, nc, names, sep, f.separatorChar() == 0));
+            }
+            while (bad >= 0) {
+                // a cell off the fast path: the general parser, or a refusal naming line and column
+                cols[bad][rows] = slow(source, L, f, fs[bad], fe[bad], dc, bad, names, sep);
+                bad = rowFrom(L.buf, bad + 1, dot, fs, fe, cols, rows, resHist, num);
             }
             rows++;
         } while (L.next());
@@ -214,6 +209,26 @@ final class DelimitedText {
             resolution[c] = resolution(resHist[c], rows);
         }
         return new Table(names, cols, rows, firstDataLine, contiguous, meta, comments, resolution, sep, dc, headerLine);
+    }
+
+    /**
+     * Splits and parses one data line into row {@code r}: -1 done, -2 wrong field count, else the first
+     * column that needs the general parser. A small method of its own so the JIT compiles it early.
+     */
+    private static int row(byte[] b, int ls, int le, char sep, byte dot, int[] fs, int[] fe, double[][] cols, int r, int[][] resHist, Num num) {
+        int nc = cols.length;
+        if (splitBytes(b, ls, le, sep, fs, fe, nc + 1) != nc) return -2;
+        return rowFrom(b, 0, dot, fs, fe, cols, r, resHist, num);
+    }
+
+    private static int rowFrom(byte[] b, int c0, byte dot, int[] fs, int[] fe, double[][] cols, int r, int[][] resHist, Num num) {
+        for (int c = c0; c < cols.length; c++) {
+            if (!parse(b, fs[c], fe[c], dot, num)) return c;
+            cols[c][r] = num.value;
+            int h = num.resExp + 40;
+            if (h >= 0 && h < 64) resHist[c][h]++;
+        }
+        return -1;
     }
 
     /**
