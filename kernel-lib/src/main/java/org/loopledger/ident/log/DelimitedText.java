@@ -164,8 +164,12 @@ final class DelimitedText {
         int nc = names.length;
         int cap = 1024;
         if (sizeHintBytes > 0) {
-            long est = sizeHintBytes / Math.max(8, L.le - L.ls + 1);
-            cap = (int) Math.min(Integer.MAX_VALUE - 16, Math.max(1024, est + est / 16 + 64));
+            // rows from the mean line length of the data already in the buffer (up to 1 MB), 2 % slack
+            int lines = 0;
+            for (int i = L.ls; i < L.end; i++) if (L.buf[i] == '\n') lines++;
+            double meanLine = lines > 0 ? (double) (L.end - L.ls) / lines : L.le - L.ls + 1;
+            long est = (long) (sizeHintBytes / Math.max(4, meanLine));
+            cap = (int) Math.min(Integer.MAX_VALUE - 16, Math.max(1024, est + est / 50 + 64));
         }
         double[][] cols = new double[nc][cap];
         // histogram of each column's printed resolution 10^e, e in [-40, 23]
