@@ -54,13 +54,15 @@ public final class LogBench {
             String[] jc = child(file, "-Xmx" + capMb + "m");
             double jt = Double.parseDouble(jd[0]), jm = Double.parseDouble(jd[1]);
             double pt = Double.parseDouble(py[0]), pm = Double.parseDouble(py[1]);
-            out.printf(Locale.ROOT, "Java DriveLogReader, default heap: read %.2f s, peak RSS %.0f MB (heap used after GC %.0f MB)%n", jt, jm, Double.parseDouble(jd[2]));
+            double jcpu = Double.parseDouble(jd[3]), pcpu = Double.parseDouble(py[3]);
+            out.printf(Locale.ROOT, "Java DriveLogReader, default heap: read %.2f s (CPU %.2f s, all JVM threads), peak RSS %.0f MB (heap used after GC %.0f MB)%n",
+                    jt, jcpu, jm, Double.parseDouble(jd[2]));
             if (jc[0].equals("failed")) out.printf(Locale.ROOT, "Java DriveLogReader, -Xmx%dm: FAILED (%s)%n", capMb, jc[1]);
             else out.printf(Locale.ROOT, "Java DriveLogReader, -Xmx%dm (arrays + 25 %% + 64 MB): read %.2f s, peak RSS %.0f MB%n", capMb,
                     Double.parseDouble(jc[0]), Double.parseDouble(jc[1]));
-            out.printf(Locale.ROOT, "numpy.loadtxt (%s): read %.2f s, peak RSS %.0f MB%n", py[2], pt, pm);
-            out.printf(Locale.ROOT, "ratios (numpy / Java): time %.2fx, peak RSS %.2fx; Java peak RSS / numeric arrays %.2f%n",
-                    pt / jt, pm / jm, jm * 1e6 / arrays);
+            out.printf(Locale.ROOT, "numpy.loadtxt (%s): read %.2f s (CPU %.2f s), peak RSS %.0f MB%n", py[2], pt, pcpu, pm);
+            out.printf(Locale.ROOT, "ratios (numpy / Java): wall time %.2fx, CPU time %.2fx, peak RSS %.2fx; Java peak RSS / numeric arrays %.2f%n",
+                    pt / jt, pcpu / jcpu, pm / jm, jm * 1e6 / arrays);
             out.printf(Locale.ROOT, "load average after: %s%n", loadAverage());
             return 0;
         } finally {
@@ -92,17 +94,20 @@ public final class LogBench {
         return rows;
     }
 
-    /** Child entry: reads the file, prints "seconds peakRssMb heapAfterGcMb". */
+    /** Child entry: reads the file, prints "seconds peakRssMb heapAfterGcMb cpuSeconds" (CPU of all the JVM's threads: parse, JIT, GC). */
     public static void main(String[] args) throws Exception {
         Path f = Path.of(args[0]);
+        var os = (com.sun.management.OperatingSystemMXBean) java.lang.management.ManagementFactory.getOperatingSystemMXBean();
+        long c0 = os.getProcessCpuTime();
         long t0 = System.nanoTime();
         DriveLog log = DriveLogReader.read(f, LogCheckOptions.defaults().withSampleRateHz(16000));
         double s = (System.nanoTime() - t0) / 1e9;
+        double cpu = (os.getProcessCpuTime() - c0) / 1e9;
         if (log.rows() < 1) throw new IllegalStateException();
         System.gc();
         Runtime rt = Runtime.getRuntime();
         double used = (rt.totalMemory() - rt.freeMemory()) / 1e6;
-        System.out.printf(Locale.ROOT, "%.4f %.1f %.1f%n", s, vmHwmMb(), used);
+        System.out.printf(Locale.ROOT, "%.4f %.1f %.1f %.4f%n", s, vmHwmMb(), used, cpu);
     }
 
     static String loadAverage() {
@@ -142,15 +147,18 @@ public final class LogBench {
     private static String[] python(Path file) throws Exception {
         String script = """
                 import sys, time, resource, numpy as np
-                t0 = time.perf_counter()
+                def cpu():
+                    u = resource.getrusage(resource.RUSAGE_SELF)
+                    return u.ru_utime + u.ru_stime
+                c0 = cpu(); t0 = time.perf_counter()
                 a = np.loadtxt(sys.argv[1], delimiter=',', skiprows=1)
-                t = time.perf_counter() - t0
-                print('%.4f %.1f numpy %s' % (t, resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024 * 1.048576, np.__version__))
+                t = time.perf_counter() - t0; c = cpu() - c0
+                print('%.4f %.1f numpy %s %.4f' % (t, resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024 * 1.048576, np.__version__, c))
                 """;
         Process p = new ProcessBuilder("/usr/bin/python3", "-c", script, file.toString()).redirectErrorStream(true).start();
         String out = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8).strip();
         if (!p.waitFor(20, TimeUnit.MINUTES) || p.exitValue() != 0) throw new IllegalStateException("numpy.loadtxt failed: " + out);
         String[] f = out.lines().reduce((a, b) -> b).orElse("").split(" ");
-        return new String[] {f[0], f[1], f[2] + " " + f[3]};
+        return new String[] {f[0], f[1], f[2] + " " + f[3], f[4]};
     }
 }

@@ -29,7 +29,7 @@ final class DelimitedText {
     private DelimitedText() {}
 
     /**
-     * What was read. Columns are trimmed to {@code rows}. Data row r (0-based) is file line
+     * What was read. Columns hold {@code rows} values and may be longer (capacity). Data row r (0-based) is file line
      * {@code firstDataLine + r} when {@code contiguous} (no comment or blank line among the data).
      */
     record Table(String[] names, double[][] columns, int rows, int firstDataLine, boolean contiguous, Map<String, String> metadata,
@@ -208,10 +208,8 @@ final class DelimitedText {
             rows++;
         } while (L.next());
         double[] resolution = new double[nc];
-        for (int c = 0; c < nc; c++) {
-            if (cols[c].length != rows) cols[c] = Arrays.copyOf(cols[c], rows);
-            resolution[c] = resolution(resHist[c], rows);
-        }
+        // not trimmed: a copy would need the memory of one more column at the end
+        for (int c = 0; c < nc; c++) resolution[c] = resolution(resHist[c], rows);
         return new Table(names, cols, rows, firstDataLine, contiguous, meta, comments, resolution, sep, dc, headerLine);
     }
 

@@ -17,6 +17,7 @@ import java.util.Optional;
 public final class DriveLog {
     private final String source;
     private final double sampleRateHz;
+    private final int rows;
     private final double[] time;
     private final Map<String, double[]> columns;
     private final List<LogIssue> warnings;
@@ -25,13 +26,15 @@ public final class DriveLog {
     private final Provenance.Dataset dataset;
 
     DriveLog(String source, double sampleRateHz, double[] time, Map<String, double[]> columns, List<LogIssue> warnings) {
-        this(source, sampleRateHz, time, columns, warnings, Map.of(), Map.of(), null);
+        this(source, sampleRateHz, time.length, time, columns, warnings, Map.of(), Map.of(), null);
     }
 
-    DriveLog(String source, double sampleRateHz, double[] time, Map<String, double[]> columns, List<LogIssue> warnings,
+    /** {@code rows} values of each array are the log's; the arrays may be longer (the reader's capacity, never trimmed by a copy). */
+    DriveLog(String source, double sampleRateHz, int rows, double[] time, Map<String, double[]> columns, List<LogIssue> warnings,
              Map<String, String> metadata, Map<String, String> columnSources, Provenance.Dataset dataset) {
         this.source = source;
         this.sampleRateHz = sampleRateHz;
+        this.rows = rows;
         this.time = time;
         this.columns = new LinkedHashMap<>(columns);
         this.warnings = List.copyOf(warnings);
@@ -65,11 +68,11 @@ public final class DriveLog {
     /** As stated (read options, column map or the file's {@code sample_rate_Hz} metadata), else the time column's span over its count. */
     public double sampleRateHz() { return sampleRateHz; }
 
-    public int rows() { return time.length; }
+    public int rows() { return rows; }
 
-    public double durationS() { return time.length / sampleRateHz; }
+    public double durationS() { return rows / sampleRateHz; }
 
-    public double[] timeS() { return time.clone(); }
+    public double[] timeS() { return Arrays.copyOf(time, rows); }
 
     public List<String> columnNames() { return List.copyOf(columns.keySet()); }
 
@@ -77,7 +80,7 @@ public final class DriveLog {
     public double[] column(String name) {
         double[] c = columns.get(name);
         if (c == null) throw new IllegalArgumentException("the log " + source + " has no column '" + name + "'; it has " + columnNames());
-        return c.clone();
+        return Arrays.copyOf(c, rows);
     }
 
     public double[] injectedCurrentA() { return column(LogColumns.INJECTED_CURRENT); }
@@ -96,10 +99,10 @@ public final class DriveLog {
     }
 
     @Override public boolean equals(Object o) {
-        if (!(o instanceof DriveLog d) || !Arrays.equals(time, d.time) || !columns.keySet().equals(d.columns.keySet())) return false;
-        for (String k : columns.keySet()) if (!Arrays.equals(columns.get(k), d.columns.get(k))) return false;
+        if (!(o instanceof DriveLog d) || rows != d.rows || !Arrays.equals(time, 0, rows, d.time, 0, rows) || !columns.keySet().equals(d.columns.keySet())) return false;
+        for (String k : columns.keySet()) if (!Arrays.equals(columns.get(k), 0, rows, d.columns.get(k), 0, rows)) return false;
         return true;
     }
 
-    @Override public int hashCode() { return Arrays.hashCode(time) * 31 + columns.keySet().hashCode(); }
+    @Override public int hashCode() { return Arrays.hashCode(Arrays.copyOf(time, Math.min(rows, 64))) * 31 + columns.keySet().hashCode() + rows; }
 }

@@ -53,7 +53,7 @@ public final class DriveLogReader {
             t = DelimitedText.read(file.toString(), in, Files.size(file), format);
         }
         Provenance.Dataset d = Provenance.recordDataset(file);
-        return assemble(file.toString(), t.names(), t.columns(), t.resolution(), t.contiguous() ? t.firstDataLine() : 0, t.headerLine(),
+        return assemble(file.toString(), t.rows(), t.names(), t.columns(), t.resolution(), t.contiguous() ? t.firstDataLine() : 0, t.headerLine(),
                 t.metadata(), map, o, d);
     }
 
@@ -67,7 +67,7 @@ public final class DriveLogReader {
         try {
             byte[] b = text.getBytes(format.charset());
             DelimitedText.Table t = DelimitedText.read(source, new ByteArrayInputStream(b), b.length, format);
-            return assemble(source, t.names(), t.columns(), t.resolution(), t.contiguous() ? t.firstDataLine() : 0, t.headerLine(),
+            return assemble(source, t.rows(), t.names(), t.columns(), t.resolution(), t.contiguous() ? t.firstDataLine() : 0, t.headerLine(),
                     t.metadata(), map, o, null);
         } catch (IOException e) {
             throw new IllegalStateException(e);
@@ -76,15 +76,15 @@ public final class DriveLogReader {
 
     /**
      * Names, units, time base, checks: shared by the text and .mat readers. {@code columns} are owned
-     * (scaled in place). {@code firstDataLine} 0 when rows do not map to lines; {@code headerLine} 0 when there is no header line.
+     * (scaled in place) and hold {@code n} rows (they may be longer). {@code firstDataLine} 0 when rows do not map to lines; {@code headerLine} 0 when there is no header line.
      */
-    static DriveLog assemble(String source, String[] fileNames, double[][] columns, double[] resolution, int firstDataLine, int headerLine,
+    static DriveLog assemble(String source, int n, String[] fileNames, double[][] columns, double[] resolution, int firstDataLine, int headerLine,
                              Map<String, String> metadata, ColumnMap map, LogCheckOptions o, Provenance.Dataset dataset) {
         String where = headerLine > 0 ? source + ": line " + headerLine + " (header)" : source;
         List<LogIssue> early = new ArrayList<>();
         for (ColumnMap.Entry e : map.entries()) {
             boolean found = false;
-            for (String n : fileNames) if (n.equals(e.fileColumn())) found = true;
+            for (String fn : fileNames) if (fn.equals(e.fileColumn())) found = true;
             if (!found) {
                 throw new IllegalArgumentException(where + ": the column map names '" + e.fileColumn() + "', which the file does not have; its columns are "
                         + java.util.Arrays.toString(fileNames) + " (names must match exactly, case and blanks included)");
@@ -124,7 +124,7 @@ public final class DriveLogReader {
                 throw new IllegalArgumentException(where + ", field " + (c + 1) + ": " + m);
             }
             double[] v = columns[c];
-            if (factor != 1) for (int i = 0; i < v.length; i++) v[i] *= factor;
+            if (factor != 1) for (int i = 0; i < n; i++) v[i] *= factor;
             if (cols.containsKey(si) || (si.equals(LogColumns.TIME) && time != null)) {
                 throw new IllegalArgumentException(where + ": two columns become " + si + " (" + sources.getOrDefault(si, "time") + " and '" + name
                         + "'); drop one or map one to another quantity");
@@ -162,16 +162,15 @@ public final class DriveLogReader {
         String[] names = cols.keySet().toArray(String[]::new);
         double[][] values = cols.values().toArray(double[][]::new);
         List<LogIssue> issues = new ArrayList<>(early);
-        issues.addAll(LogChecks.check(time, timeRes, names, values, eff));
+        issues.addAll(LogChecks.check(n, time, timeRes, names, values, eff));
         if (firstDataLine != 2) issues.replaceAll(i -> i.atFirstDataLine(firstDataLine));
         List<LogIssue> errors = issues.stream().filter(i -> i.severity() == LogIssue.Severity.ERROR).toList();
         if (!errors.isEmpty()) {
             throw new IllegalArgumentException(source + ": the log fails its checks:\n  "
                     + issues.stream().map(LogIssue::toString).collect(Collectors.joining("\n  ")));
         }
-        double rate = Double.isNaN(stated) ? LogChecks.rateFromTimeHz(time) : stated;
+        double rate = Double.isNaN(stated) ? LogChecks.rateFromTimeHz(time, n) : stated;
         if (time == null) {
-            int n = values.length > 0 ? values[0].length : 0;
             time = new double[n];
             for (int k = 0; k < n; k++) time[k] = k / stated;
             sources.put(LogColumns.TIME, "k / " + LogUnit.fmt(stated) + " Hz (" + statedBy + "; no time column)");
@@ -179,7 +178,7 @@ public final class DriveLogReader {
         Map<String, String> srcOrdered = new LinkedHashMap<>();
         srcOrdered.put(LogColumns.TIME, sources.remove(LogColumns.TIME));
         srcOrdered.putAll(sources);
-        return new DriveLog(source, rate, time, cols, issues, metadata, srcOrdered, dataset);
+        return new DriveLog(source, rate, n, time, cols, issues, metadata, srcOrdered, dataset);
     }
 
     private static double metadataRate(String source, Map<String, String> metadata) {

@@ -101,7 +101,7 @@ public final class FrfFileReader {
     }
 
     private static double[] col(String where, DelimitedText.Table t, String name) {
-        for (int i = 0; i < t.names().length; i++) if (t.names()[i].equals(name)) return t.columns()[i];
+        for (int i = 0; i < t.names().length; i++) if (t.names()[i].equals(name)) return java.util.Arrays.copyOf(t.columns()[i], t.rows());
         throw new IllegalArgumentException(where + ": no column '" + name + "'; the columns are " + java.util.Arrays.toString(t.names()));
     }
 }

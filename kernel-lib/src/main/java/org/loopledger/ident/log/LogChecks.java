@@ -33,33 +33,39 @@ public final class LogChecks {
      * comes from a stated rate; {@code timeResolutionS} the last printed digit of the timestamps (0 unknown).
      */
     public static List<LogIssue> check(double[] time, double timeResolutionS, String[] names, double[][] columns, LogCheckOptions o) {
+        return check(time != null ? time.length : columns.length > 0 ? columns[0].length : 0, time, timeResolutionS, names, columns, o);
+    }
+
+    /** As above on the first {@code n} values of each array (the reader's arrays may be longer than the log). */
+    static List<LogIssue> check(int n, double[] time, double timeResolutionS, String[] names, double[][] columns, LogCheckOptions o) {
         List<LogIssue> issues = new ArrayList<>();
-        int n = time != null ? time.length : columns.length > 0 ? columns[0].length : 0;
         if (n < o.minimumSamples()) {
             issues.add(new LogIssue(LogIssue.Severity.ERROR, time != null ? LogColumns.TIME : names.length > 0 ? names[0] : LogColumns.TIME, 0, String.format(Locale.ROOT,
                     "the log has %d rows, fewer than the %d needed; record longer", n, o.minimumSamples())));
         }
-        if (time != null) checkFinite(LogColumns.TIME, time, issues);
-        for (int c = 0; c < names.length; c++) checkFinite(names[c], columns[c], issues);
-        if (time != null && n >= 2) checkTime(time, timeResolutionS, o, issues);
-        for (int c = 0; c < names.length; c++) checkDead(names[c], columns[c], issues);
+        if (time != null) checkFinite(LogColumns.TIME, time, n, issues);
+        for (int c = 0; c < names.length; c++) checkFinite(names[c], columns[c], n, issues);
+        if (time != null && n >= 2) checkTime(time, n, timeResolutionS, o, issues);
+        for (int c = 0; c < names.length; c++) checkDead(names[c], columns[c], n, issues);
         for (int c = 0; c < names.length; c++) {
             if (!LogColumns.follows(names[c])) continue;
             LogColumns.Column col = LogColumns.parse(names[c]);
-            if (col.siToken().equals("A") && !col.quantity().contains("injected")) checkClipping(names[c], columns[c], o, issues);
+            if (col.siToken().equals("A") && !col.quantity().contains("injected")) checkClipping(names[c], columns[c], n, o, issues);
         }
         return issues;
     }
 
     /** The rate of a time column as the span over the count, (n − 1)/(t<sub>n-1</sub> − t<sub>0</sub>). */
-    public static double rateFromTimeHz(double[] time) {
-        if (time.length < 2) throw new IllegalArgumentException("a rate needs at least 2 time stamps, got " + time.length);
-        return (time.length - 1) / (time[time.length - 1] - time[0]);
+    public static double rateFromTimeHz(double[] time) { return rateFromTimeHz(time, time.length); }
+
+    static double rateFromTimeHz(double[] time, int n) {
+        if (n < 2) throw new IllegalArgumentException("a rate needs at least 2 time stamps, got " + n);
+        return (n - 1) / (time[n - 1] - time[0]);
     }
 
-    private static void checkFinite(String name, double[] x, List<LogIssue> issues) {
+    private static void checkFinite(String name, double[] x, int n, List<LogIssue> issues) {
         int first = -1, count = 0;
-        for (int i = 0; i < x.length; i++) {
+        for (int i = 0; i < n; i++) {
             if (!Double.isFinite(x[i])) {
                 if (first < 0) first = i;
                 count++;
@@ -71,18 +77,18 @@ public final class LogChecks {
         }
     }
 
-    private static void checkDead(String name, double[] x, List<LogIssue> issues) {
-        if (x.length < 2) return;
+    private static void checkDead(String name, double[] x, int n, List<LogIssue> issues) {
+        if (n < 2) return;
         double v0 = x[0];
-        for (double v : x) if (v != v0) return;
+        for (int i = 1; i < n; i++) if (x[i] != v0) return;
         issues.add(new LogIssue(LogIssue.Severity.WARNING, name, 0, String.format(Locale.ROOT,
                 "constant %s over all %d rows: a dead channel (not connected, wrong channel selected in the drive, or a zero scale)? "
                         + "a frequency response from it would be -infinity dB or undefined; check the drive's channel selection and the column map",
-                Double.toString(v0), x.length)));
+                Double.toString(v0), n)));
     }
 
-    private static double medianOfSample(double[] t) {
-        int steps = t.length - 1;
+    private static double medianOfSample(double[] t, int n) {
+        int steps = n - 1;
         int stride = Math.max(1, steps / 10_001);
         double[] s = new double[(steps + stride - 1) / stride];
         int k = 0;
@@ -92,8 +98,7 @@ public final class LogChecks {
         return s[s.length / 2];
     }
 
-    private static void checkTime(double[] t, double res, LogCheckOptions o, List<LogIssue> issues) {
-        int n = t.length;
+    private static void checkTime(double[] t, int n, double res, LogCheckOptions o, List<LogIssue> issues) {
         int firstBad = -1, bad = 0;
         for (int i = 1; i < n; i++) {
             double d = t[i] - t[i - 1];
@@ -110,8 +115,8 @@ public final class LogChecks {
         }
         if (!Double.isFinite(t[0]) || !Double.isFinite(t[n - 1])) return;
         double stated = o.expectedSampleRateHz();
-        double fromTime = rateFromTimeHz(t);
-        double median = medianOfSample(t);
+        double fromTime = rateFromTimeHz(t, n);
+        double median = medianOfSample(t, n);
         if (!Double.isNaN(stated) && Math.abs(fromTime - stated) / stated > o.jitterErrorFraction()) {
             issues.add(new LogIssue(LogIssue.Severity.ERROR, LogColumns.TIME, 0, String.format(Locale.ROOT,
                     "the time column gives %.6g Hz (span over count), which does not match the stated sample rate %.6g Hz; check the rate or the time unit "
@@ -176,14 +181,14 @@ public final class LogChecks {
         }
     }
 
-    private static void checkClipping(String name, double[] x, LogCheckOptions o, List<LogIssue> issues) {
+    private static void checkClipping(String name, double[] x, int n, LogCheckOptions o, List<LogIssue> issues) {
         double max = 0;
-        for (double v : x) if (Double.isFinite(v)) max = Math.max(max, Math.abs(v));
+        for (int i = 0; i < n; i++) if (Double.isFinite(x[i])) max = Math.max(max, Math.abs(x[i]));
         if (max == 0) return;
         double level = max * (1 - 1e-9);
         int run = 0, runStart = -1, firstRow = -1, runs = 0;
-        for (int i = 0; i <= x.length; i++) {
-            boolean at = i < x.length && Math.abs(x[i]) >= level && (run == 0 || Math.signum(x[i]) == Math.signum(x[runStart]));
+        for (int i = 0; i <= n; i++) {
+            boolean at = i < n && Math.abs(x[i]) >= level && (run == 0 || Math.signum(x[i]) == Math.signum(x[runStart]));
             if (at) {
                 if (run == 0) runStart = i;
                 run++;
@@ -193,7 +198,7 @@ public final class LogChecks {
                     runs++;
                 }
                 run = 0;
-                if (i < x.length && Math.abs(x[i]) >= level) { runStart = i; run = 1; }
+                if (i < n && Math.abs(x[i]) >= level) { runStart = i; run = 1; }
             }
         }
         if (firstRow > 0) {

@@ -57,7 +57,7 @@ public final class MatLogReader {
             }
         }
         Provenance.Dataset d = Provenance.recordDataset(file);
-        return DriveLogReader.assemble(source, names.toArray(String[]::new), cols.toArray(double[][]::new), null, 0, 0, meta, map, o, d);
+        return DriveLogReader.assemble(source, n, names.toArray(String[]::new), cols.toArray(double[][]::new), null, 0, 0, meta, map, o, d);
     }
 
     private static void checkHeader(Path file) throws IOException {

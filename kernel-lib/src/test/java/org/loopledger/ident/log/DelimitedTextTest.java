@@ -38,18 +38,19 @@ class DelimitedTextTest {
         // decimal comma, same numbers
         DelimitedText.Table u = read(sb.toString().replace('.', ','), LogFormat.detect(), 0);
         assertTrue(u.decimalComma());
-        for (int c = 0; c < 4; c++) assertArrayEquals(t.columns()[c], u.columns()[c], 0.0);
+        for (int c = 0; c < 4; c++) assertArrayEquals(java.util.Arrays.copyOf(t.columns()[c], t.rows()), java.util.Arrays.copyOf(u.columns()[c], u.rows()), 0.0);
     }
 
     @Test
-    void columnsGrowPastAnUnderestimateAndTrimAnOverestimate() throws IOException {
+    void columnsGrowPastAnUnderestimateAndKeepAnOverestimate() throws IOException {
         StringBuilder sb = new StringBuilder("time_s,x_m\n");
         for (int i = 0; i < 5000; i++) sb.append(i).append(',').append(i % 3 == 0 ? "1.000000000000001" : "2").append('\n');
         String text = sb.toString();
         for (long hint : new long[] {0, 100, text.length(), 100L * text.length()}) {
             DelimitedText.Table t = read(text, LogFormat.detect(), hint);
             assertEquals(5000, t.rows());
-            assertEquals(5000, t.columns()[0].length);
+            // capacity: the estimate plus slack, never trimmed by a copy (that would cost one more column at the peak)
+            assertTrue(t.columns()[0].length >= 5000);
             assertEquals(4999, t.columns()[0][4999], 0.0);
             assertEquals(1.000000000000001, t.columns()[1][4998], 0.0);
         }
