@@ -68,7 +68,7 @@ public final class DemoDatasets {
         DriveLoopSettings s = DriveLoopSettings.demo();
         StringBuilder sb = new StringBuilder();
         sb.append("""
-                # Demo datasets: SYNTHETIC laser-marking gantry, axis X
+                # Demo datasets: SYNTHETIC laser-marking gantry (axis X) and linear pick-and-place axis (Y)
 
                 **These data are synthetic.** They come from a simulation with invented parameters; no
                 machine was measured. They exist to demonstrate and test identification, fitting and
