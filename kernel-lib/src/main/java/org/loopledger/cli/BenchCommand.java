@@ -17,9 +17,10 @@ import java.util.concurrent.Callable;
 @Command(name = "bench", mixinStandardHelpOptions = true, versionProvider = VersionProvider.class, description = {"Benchmarks, each against a reference measured in the same run:",
         "'kernel' start-up and cell latency against ipykernel; 'runner NOTEBOOK' run and verify against jupyter nbconvert --execute;",
         "'tune' auto-tune against screening through the general analysis path; 'spectral' H1 + coherence against SciPy;",
-        "'figures' render time and stored size of a Bode and a 40,940-sample time plot against matplotlib."})
+        "'figures' render time and stored size of a Bode and a 40,940-sample time plot against matplotlib.",
+        "'logs' reading a 100 MB log: time and peak memory against numpy.loadtxt."})
 final class BenchCommand implements Callable<Integer> {
-    @Parameters(index = "0", paramLabel = "WHAT", description = "kernel | runner | tune | spectral | figures")
+    @Parameters(index = "0", paramLabel = "WHAT", description = "kernel | runner | tune | spectral | figures | logs")
     String what;
 
     @Parameters(index = "1", arity = "0..1", paramLabel = "NOTEBOOK", description = "the notebook for 'runner'")
@@ -43,11 +44,13 @@ final class BenchCommand implements Callable<Integer> {
                 return org.loopledger.tune.bench.TuneBench.run(System.out);
             case "figures":
                 return org.loopledger.display.bench.FigureBench.run(System.out, java.nio.file.Path.of("datasets/gantry-x-empty.csv"), "/usr/bin/python3");
+            case "logs":
+                return org.loopledger.ident.bench.LogBench.run(System.out);
             case "spectral":
                 org.loopledger.ident.bench.SpectralBench.main(new String[0]);
                 return 0;
             default:
-                System.err.println("unknown benchmark '" + what + "'; available: kernel, runner, tune, spectral, figures");
+                System.err.println("unknown benchmark '" + what + "'; available: kernel, runner, tune, spectral, figures, logs");
                 return 2;
         }
     }

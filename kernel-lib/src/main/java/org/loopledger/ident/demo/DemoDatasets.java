@@ -27,12 +27,13 @@ public final class DemoDatasets {
     public static void main(String[] args) throws IOException {
         Path dir = Path.of(args.length > 0 ? args[0] : "datasets");
         writeAll(dir);
-        System.out.println("wrote the synthetic gantry datasets and README.md to " + dir.toAbsolutePath());
+        System.out.println("wrote the synthetic gantry and linear-axis datasets and README.md to " + dir.toAbsolutePath());
     }
 
     public static void writeAll(Path dir) throws IOException {
         Files.createDirectories(dir);
         for (GantryLoadCase c : GantryLoadCase.values()) Files.writeString(dir.resolve(c.fileName()), csv(c), StandardCharsets.UTF_8);
+        Files.writeString(dir.resolve(LinearAxisScope.FILE), LinearAxisScope.csv(), StandardCharsets.UTF_8);
         Files.writeString(dir.resolve("README.md"), readme(), StandardCharsets.UTF_8);
     }
 
@@ -70,7 +71,7 @@ public final class DemoDatasets {
         DriveLoopSettings s = DriveLoopSettings.demo();
         StringBuilder sb = new StringBuilder();
         sb.append("""
-                # Demo datasets: SYNTHETIC laser-marking gantry, axis X
+                # Demo datasets: SYNTHETIC laser-marking gantry (axis X) and linear pick-and-place axis (Y)
 
                 **These data are synthetic.** They come from a simulation with invented parameters; no
                 machine was measured. They exist to demonstrate and test identification, fitting and
@@ -142,8 +143,8 @@ public final class DemoDatasets {
                     c.fileName(), g(c.movingMassKg()), g(c.axis().loadInertiaKgM2()), g(t.inertiaKgM2()), g(t.viscousNmsPerRad()),
                     g(t.resonanceHz()), g(t.resonanceDamping()), g(t.antiresonanceHz()), g(t.antiresonanceDamping()), g(t.inertiaRatio())));
         }
+        sb.append("\n").append(LinearAxisScope.readme());
         sb.append("""
-
                 ## Caution
 
                 Tuning moves real machinery. Try new gains with reduced current and speed limits, guarding and an

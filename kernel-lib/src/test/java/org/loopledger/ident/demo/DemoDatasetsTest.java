@@ -1,6 +1,12 @@
 package org.loopledger.ident.demo;
 
 import org.junit.jupiter.api.Test;
+import org.loopledger.ident.log.ColumnMap;
+import org.loopledger.ident.log.DriveLog;
+import org.loopledger.ident.log.DriveLogReader;
+import org.loopledger.ident.log.LogCheckOptions;
+import org.loopledger.ident.log.LogUnit;
+import org.loopledger.ident.log.Quantity;
 import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.EnumSource;
 
@@ -31,6 +37,41 @@ class DemoDatasetsTest {
         byte[] fresh = DemoDatasets.csv(c).getBytes(StandardCharsets.UTF_8);
         assertEquals(sha256(fresh), sha256(committed), file + " differs from the generator; rerun DemoDatasets (and say why in the commit)");
         assertTrue(committed.length < 4_000_000, "keep each dataset below 4 MB, got " + committed.length);
+    }
+
+    @Test
+    void committedLinearAxisScopeExportMatchesTheGenerator() throws Exception {
+        Path file = DatasetsFolder.find().resolve(LinearAxisScope.FILE);
+        byte[] committed = Files.readAllBytes(file);
+        byte[] fresh = LinearAxisScope.csv().getBytes(StandardCharsets.UTF_8);
+        assertEquals(sha256(fresh), sha256(committed), file + " differs from the generator; rerun DemoDatasets (and say why in the commit)");
+        assertTrue(committed.length < 1_000_000, "keep the scope export below 1 MB, got " + committed.length);
+        assertTrue(new String(committed, 0, 200, StandardCharsets.UTF_8).startsWith("# SYNTHETIC demo data"));
+    }
+
+    @Test
+    void linearAxisScopeExportReadsBackToTheSimulationThroughAColumnMap() throws IOException {
+        ColumnMap map = ColumnMap.of()
+                .column("Pos act [inc]", Quantity.POSITION, LogUnit.countsPerMetre(LinearAxisScope.COUNTS_PER_METRE))
+                .column("Vel act [mm/s]", Quantity.VELOCITY, LogUnit.millimetresPerSecond())
+                .column("Iq act [mA]", Quantity.CURRENT_MEASURED, LogUnit.milliamperes())
+                .column("Iq inj [mA]", Quantity.CURRENT_INJECTED, LogUnit.milliamperes());
+        DriveLog log = DriveLogReader.read(DatasetsFolder.find().resolve(LinearAxisScope.FILE), map, LogCheckOptions.defaults());
+        assertEquals(8000, log.sampleRateHz(), 0.0);
+        assertEquals(LinearAxisScope.PERIOD_SAMPLES * LinearAxisScope.PERIODS, log.rows());
+        assertTrue(log.warnings().isEmpty(), log.warnings().toString());
+        var r = LinearAxisScope.simulate();
+        // printed to 0.001 mm/s and 0.1 mA: half a unit of the last digit, plus the decimal-to-binary rounding
+        assertArrayEquals(r.velocityMPerS(), log.velocityMPerS(), 0.5e-6 * (1 + 1e-9));
+        assertArrayEquals(r.measuredA(), log.measuredCurrentA(), 0.5e-4 * (1 + 1e-9));
+        assertArrayEquals(r.injectedA(), log.injectedCurrentA(), 1e-12);
+        assertArrayEquals(r.positionM(), log.positionM(), 1e-15);
+        // the structural resonance of the invented axis sits where the scenario says (two-mass physics:
+        // resonance above antiresonance, ωr²/ωa² = 1 + m2/m1 for light damping; hand derivation)
+        var t = LinearAxisScope.truth();
+        assertTrue(t.resonanceHz() > 150 && t.resonanceHz() < 250, "resonance " + t.resonanceHz());
+        assertEquals(1 + 1.3 / 4.2, Math.pow(t.resonanceHz() / t.antiresonanceHz(), 2), 1e-3);
+        assertEquals(5.5, t.massKg(), 1e-3);
     }
 
     @Test

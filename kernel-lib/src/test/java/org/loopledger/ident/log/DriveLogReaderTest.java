@@ -82,12 +82,12 @@ class DriveLogReaderTest {
         assertTrue(m.contains("50 rows") && m.contains("100"), m);
         m = assertThrows(IllegalArgumentException.class, () -> DriveLogReader.readString("s.csv", csv(200, (r, c) -> null), OPT.withSampleRateHz(8000))).getMessage();
         assertTrue(m.contains("8000.00 Hz") && m.contains("does not match"), m);
-        m = assertThrows(IllegalArgumentException.class, () -> DriveLogReader.readString("h.csv", "time_s,speed_rpm\n0,1\n", OPT)).getMessage();
-        assertTrue(m.contains("speed_rpm") && m.contains("quantity_unit"), m);
+        m = assertThrows(IllegalArgumentException.class, () -> DriveLogReader.readString("h.csv", "time_s,Speed[rpm]\n0,1\n", OPT)).getMessage();
+        assertTrue(m.contains("Speed[rpm]") && m.contains("quantity_unit"), m);
         m = assertThrows(IllegalArgumentException.class, () -> DriveLogReader.readString("h.csv", "current_measured_A\n1\n", OPT)).getMessage();
-        assertTrue(m.contains("no time_s"), m);
+        assertTrue(m.contains("no time column") && m.contains("sampleRateHz"), m);
         m = assertThrows(IllegalArgumentException.class, () -> DriveLogReader.readString("h.csv", csv(200, (r, c) -> r == 9 && c == 1 ? "abc" : null), OPT)).getMessage();
-        assertTrue(m.contains("cannot read as numbers"), m);
+        assertTrue(m.contains("line 10, column 'current_injected_A' (field 2): 'abc' is not a number"), m);
     }
 
     @Test

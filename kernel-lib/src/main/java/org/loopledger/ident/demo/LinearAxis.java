@@ -1,0 +1,59 @@
+package org.loopledger.ident.demo;
+
+import org.apache.commons.math3.complex.Complex;
+import org.loopledger.lti.Polynomial;
+
+import java.util.List;
+
+/**
+ * Invented physical parameters of the second demo axis (SYNTHETIC, for demos and tests only): the Y axis
+ * of a pick-and-place machine driven by an iron-core linear motor. The motor's carriage (mass m<sub>1</sub>,
+ * viscous friction b to the frame) carries the placement head (m<sub>2</sub>) on a bracket of stiffness k
+ * and damping c, a two-mass system with one structural resonance:
+ *
+ * <pre>
+ *   m<sub>1</sub>·ẍ<sub>1</sub> = K<sub>f</sub>·i - b·ẋ<sub>1</sub> - c·(ẋ<sub>1</sub> - ẋ<sub>2</sub>) - k·(x<sub>1</sub> - x<sub>2</sub>)
+ *   m<sub>2</sub>·ẍ<sub>2</sub> = c·(ẋ<sub>1</sub> - ẋ<sub>2</sub>) + k·(x<sub>1</sub> - x<sub>2</sub>)
+ * </pre>
+ * Carriage velocity per current: v<sub>1</sub>/i = K<sub>f</sub>(m<sub>2</sub>s² + cs + k) /
+ * (m<sub>1</sub>m<sub>2</sub>s³ + (m<sub>1</sub>c + m<sub>2</sub>c + m<sub>2</sub>b)s² + (m<sub>1</sub>k + m<sub>2</sub>k + bc)s + bk)
+ * (the rotary derivation of {@link GantryAxis} with masses for inertias).
+ *
+ * @param forceConstantNPerA K<sub>f</sub>
+ * @param carriageMassKg     m<sub>1</sub>, motor carriage
+ * @param headMassKg         m<sub>2</sub>, placement head on its bracket
+ * @param stiffnessNPerM     k, bracket
+ * @param dampingNsPerM      c, bracket
+ * @param viscousNsPerM      b, carriage to frame (guides, cables)
+ */
+public record LinearAxis(double forceConstantNPerA, double carriageMassKg, double headMassKg, double stiffnessNPerM, double dampingNsPerM,
+                         double viscousNsPerM) {
+
+    /** The demo's invented axis. */
+    public static LinearAxis demo() { return new LinearAxis(38, 4.2, 1.3, 1.27e6, 45, 12); }
+
+    /**
+     * The exact modal form K<sub>f</sub>/(m s + b')·(s²/ω<sub>a</sub>² + 2ζ<sub>a</sub>s/ω<sub>a</sub> + 1)/(s²/ω<sub>r</sub>² + 2ζ<sub>r</sub>s/ω<sub>r</sub> + 1)
+     * of current to carriage velocity: zeros from m<sub>2</sub>s² + cs + k, poles from the cubic's roots,
+     * m = m<sub>1</sub>ω<sub>r</sub>²/ω<sub>a</sub>², b' = m·p (derivation by hand, as {@link GantryAxis#modalTruth}).
+     */
+    public Truth truth(double delayS) {
+        double m1 = carriageMassKg, m2 = headMassKg, k = stiffnessNPerM, c = dampingNsPerM, b = viscousNsPerM;
+        double wa = Math.sqrt(k / m2), za = c / (2 * Math.sqrt(k * m2));
+        List<Complex> roots = Polynomial.ofDescending(m1 * m2, m1 * c + m2 * c + m2 * b, m1 * k + m2 * k + b * c, b * k).roots();
+        double p = Double.NaN, wr = Double.NaN, zr = Double.NaN;
+        for (Complex r : roots) {
+            if (Math.abs(r.getImaginary()) < 1e-9 * r.abs()) p = -r.getReal();
+            else if (r.getImaginary() > 0) {
+                wr = r.abs();
+                zr = -r.getReal() / wr;
+            }
+        }
+        double m = m1 * wr * wr / (wa * wa);
+        return new Truth(forceConstantNPerA, m, m * p, wr / (2 * Math.PI), zr, wa / (2 * Math.PI), za, delayS);
+    }
+
+    /** True modal parameters of current → logged carriage velocity (SI; frequencies in Hz). */
+    public record Truth(double forceConstantNPerA, double massKg, double viscousNsPerM, double resonanceHz, double resonanceDamping,
+                        double antiresonanceHz, double antiresonanceDamping, double delayS) {}
+}
