@@ -66,6 +66,8 @@ public final class KernelServer implements AutoCloseable {
         ZMQ.Socket s = context.createSocket(type);
         s.setLinger(1000);
         s.setReceiveTimeOut(POLL_MS);
+        // a larger frame closes the sender's connection inside ZeroMQ before the kernel holds it in memory
+        s.setMaxMsgSize(Channel.MAX_MESSAGE_BYTES);
         s.bind(connection.endpoint(port));
         return s;
     }
@@ -87,25 +89,39 @@ public final class KernelServer implements AutoCloseable {
         }
     }
 
+    /**
+     * The loop of one socket thread. No exception or error ends it: what fails is logged (with a
+     * description that cannot fail in turn) and the next message is read.
+     */
     private void serve(Channel channel, RequestHandler handler, Replies replies) {
         while (running) {
             Optional<Message> next;
             try {
                 next = channel.receive();
-            } catch (RuntimeException e) {
+            } catch (Throwable e) {
                 if (!running) return;
-                KernelLog.warn("receive failed: " + e);
+                warnSafely("receive on " + channel.name() + " failed: ", e);
                 continue;
             }
             if (next.isEmpty()) continue;
             Message request = next.get();
             try {
                 iopub.status(request.header(), "busy");
-                handler.handle(request).ifPresent(r -> channel.send(replies.reply(request, r.type(), r.content())));
+                handler.handle(request, channel.name()).ifPresent(r -> channel.send(replies.reply(request, r.type(), r.content())));
                 iopub.status(request.header(), "idle");
-            } catch (RuntimeException | Error e) {
-                KernelLog.warn("failed to answer " + request + ": " + e);
+            } catch (Throwable e) {
+                if (!running) return;
+                warnSafely("failed to answer " + request + " on " + channel.name() + ": ", e);
             }
+        }
+    }
+
+    /** Logs a failure; never throws (a broken log must not end a socket thread either). */
+    private static void warnSafely(String what, Throwable e) {
+        try {
+            KernelLog.warn(what + e);
+        } catch (Throwable ignored) {
+            // nothing left to tell
         }
     }
 
@@ -115,8 +131,9 @@ public final class KernelServer implements AutoCloseable {
                 byte[] ping = hb.recv(0);
                 if (ping == null) continue;
                 hb.send(ping, 0);
-            } catch (RuntimeException e) {
+            } catch (Throwable e) {
                 if (!running) return;
+                warnSafely("heartbeat failed: ", e);
             }
         }
     }
