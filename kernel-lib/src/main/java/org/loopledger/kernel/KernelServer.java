@@ -21,7 +21,8 @@ import java.util.concurrent.ExecutionException;
  * heartbeat to exactly the connection file's transport, address and ports, and serves until a
  * {@code shutdown_request}. Each channel has its own thread; the shell thread runs cells one at a
  * time, the control thread stays free to interrupt them. Every request is bracketed by
- * {@code status: busy} and {@code status: idle} on iopub with the request as parent.
+ * {@code status: busy} and {@code status: idle} on iopub with the request as parent. The kernel ends with
+ * the process that started it ({@link ParentWatch}); its agent JVM ends with the kernel.
  */
 public final class KernelServer implements AutoCloseable {
     private static final int POLL_MS = 200;
@@ -40,6 +41,7 @@ public final class KernelServer implements AutoCloseable {
 
     /** Binds the sockets and starts serving; the session starts in the background meanwhile. */
     public static KernelServer start(ConnectionInfo connection, SessionOptions options) {
+        ParentWatch.start().ifPresent(pid -> KernelLog.info("the kernel ends when process " + pid + " ends"));
         KernelServer k = new KernelServer(connection, options);
         k.bindAndServe();
         return k;
