@@ -134,7 +134,7 @@ def kill_runner(sig, name):
                    "nbformat": 4, "nbformat_minor": 4}, f)
     runner = subprocess.Popen([inp["java"], "-cp", inp["class_path"], "org.loopledger.cli.Main", "run", nb,
                                "-o", os.path.join(inp["dir"], name + ".out.ipynb")],
-                              stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL)
+                              stdin=subprocess.DEVNULL, stdout=subprocess.DEVNULL, stderr=subprocess.DEVNULL)  # as from a shell
     try:
         wait_for(lambda: os.path.exists(m) or runner.poll() is not None, 180, "the cell to start")
         if runner.poll() is not None:
