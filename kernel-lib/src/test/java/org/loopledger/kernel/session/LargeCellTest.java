@@ -36,7 +36,7 @@ class LargeCellTest {
 
     /** Not a speed target: the bound tells "finished" from "hung" on a loaded machine (before: over 300 s). */
     @Test
-    @Timeout(value = 180, unit = TimeUnit.SECONDS)
+    @Timeout(value = 180, unit = TimeUnit.SECONDS, threadMode = Timeout.ThreadMode.SEPARATE_THREAD)
     void threeThousandStatementsFinish() {
         StringBuilder b = new StringBuilder("long total = 0;\n");
         for (int i = 0; i < 3000; i++) b.append("total += ").append(i).append(";\n");
@@ -111,5 +111,57 @@ class LargeCellTest {
         for (int i = 0; i < src.length; i++) pieces.add(new CellSnippet(src[i], i, jdk.jshell.SourceCodeAnalysis.Completeness.COMPLETE));
         boolean[] plain = StatementBatches.plainStatements(pieces);
         assertArrayEquals(new boolean[] {true, false, false, false, true, false, false, true, false, false}, plain);
+    }
+
+    /** The split before windowing: JShell's analysis of the whole rest of the cell for every piece. */
+    static List<CellSnippet> splitWhole(jdk.jshell.SourceCodeAnalysis analysis, String cell) {
+        List<CellSnippet> result = new java.util.ArrayList<>();
+        String rest = cell;
+        int consumed = 0;
+        while (!rest.isBlank()) {
+            jdk.jshell.SourceCodeAnalysis.CompletionInfo info = analysis.analyzeCompletion(rest);
+            jdk.jshell.SourceCodeAnalysis.Completeness c = info.completeness();
+            if (c == jdk.jshell.SourceCodeAnalysis.Completeness.EMPTY) break;
+            String remaining = c.isComplete() ? info.remaining() : "";
+            int used = rest.length() - remaining.length();
+            String piece = rest.substring(0, used);
+            int lead = 0;
+            while (lead < piece.length() && Character.isWhitespace(piece.charAt(lead))) lead++;
+            String source = c.isComplete() && info.source() != null ? info.source().stripLeading() : piece.substring(lead);
+            if (source.isEmpty()) break;
+            result.add(new CellSnippet(source, (int) cell.substring(0, consumed + lead).chars().filter(ch -> ch == '\n').count(), c));
+            if (used <= 0) break;
+            consumed += used;
+            rest = remaining;
+        }
+        return result;
+    }
+
+    @Test
+    void theWindowedSplitEqualsTheWholeSplit() {
+        String[] kinds = {
+                "int v%d = %d;\n",
+                "v0 += %d; // a comment with ; and { in it %d\n",
+                "if (v0 > %d) v0--;\nelse\n  v0++; /* %d */\n",
+                "String s%d = \"text ; with } braces %d\";\n",
+                "double f%d(double x) {\n  return x * %d;\n}\n",
+                "try { v0 += %d; } catch (RuntimeException e) { v0 -= %d; }\n",
+                "var t%d = \"\"\"\n    block ; text\n    %d\"\"\";\n",
+                "\n\n// only a comment %d %d\n",
+        };
+        java.util.Random rnd = new java.util.Random(7);
+        StringBuilder cell = new StringBuilder("int v0 = 0;\n");
+        for (int i = 1; cell.length() < 5 * CellSnippet.WINDOW_CHARS; i++) {
+            cell.append(String.format(kinds[rnd.nextInt(kinds.length)], i, i));
+        }
+        // a piece longer than the window
+        cell.append("void big() {\n").append("  int q = 1;\n".repeat(CellSnippet.WINDOW_CHARS / 10)).append("}\n");
+        cell.append("int last = (1 +"); // an incomplete last piece
+        try (jdk.jshell.JShell js = jdk.jshell.JShell.builder().executionEngine("local").build()) {
+            jdk.jshell.SourceCodeAnalysis a = js.sourceCodeAnalysis();
+            List<CellSnippet> expected = splitWhole(a, cell.toString());
+            assertTrue(expected.size() > 100, "pieces: " + expected.size());
+            assertEquals(expected, CellSnippet.split(a, cell.toString()));
+        }
     }
 }
