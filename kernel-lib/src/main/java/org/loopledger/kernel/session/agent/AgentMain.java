@@ -3,6 +3,8 @@ package org.loopledger.kernel.session.agent;
 import jdk.jshell.execution.Util;
 import org.loopledger.display.DisplayChannel;
 
+import java.io.BufferedInputStream;
+import java.io.BufferedOutputStream;
 import java.io.InputStream;
 import java.io.PrintStream;
 import java.net.InetAddress;
@@ -49,7 +51,10 @@ public final class AgentMain {
                 "err", st -> System.setErr(new PrintStream(st, true, StandardCharsets.UTF_8)),
                 AgentLauncher.DISPLAY_CHANNEL, DisplayChannel::install);
         Map<String, Consumer<InputStream>> inputs = Map.of("in", System::setIn);
-        Util.forwardExecutionControlAndIO(control, commands.getInputStream(), commands.getOutputStream(), outputs, inputs);
+        // Buffered: JShell's multiplexer writes output in packets of at most 127 bytes and flushes its
+        // delegate at the end of every write, so the buffer only turns a write's packets into one system call.
+        Util.forwardExecutionControlAndIO(control, new BufferedInputStream(commands.getInputStream(), 1 << 16),
+                new BufferedOutputStream(commands.getOutputStream(), 1 << 16), outputs, inputs);
         System.exit(0);
     }
 
