@@ -14,6 +14,13 @@ import java.util.Optional;
  * share a socket (the iopub socket is fed by the shell, control and output threads).
  */
 final class Channel {
+    /**
+     * The largest message the kernel reads, in bytes: the sum of all frames, and through ZeroMQ's
+     * {@code ZMQ_MAXMSGSIZE} each single frame, checked before anything is kept or verified. A cell's source
+     * is far smaller; 64 MiB leaves room for the decoding copies in a default heap (a 1.5 GB unsigned frame
+     * once drove the kernel to 6.7 GB).
+     */
+    static final int MAX_MESSAGE_BYTES = 64 << 20;
     private final String name;
     private final ZMQ.Socket socket;
     private final WireCodec codec;
@@ -24,16 +31,33 @@ final class Channel {
         this.codec = codec;
     }
 
-    /** The next valid message, or empty after the receive timeout or when a message was dropped. */
+    String name() {
+        return name;
+    }
+
+    /**
+     * The next valid message, or empty after the receive timeout or when a message was dropped. A message
+     * whose frames add up to more than {@link #MAX_MESSAGE_BYTES} is read to its end and dropped unverified.
+     */
     Optional<Message> receive() {
         byte[] first = socket.recv(0);
         if (first == null) return Optional.empty();
         List<byte[]> frames = new ArrayList<>();
         frames.add(first);
+        long total = first.length;
         while (socket.hasReceiveMore()) {
             byte[] f = socket.recv(0);
             if (f == null) break;
-            frames.add(f);
+            total += f.length;
+            if (total > MAX_MESSAGE_BYTES) {
+                frames.clear();
+            } else {
+                frames.add(f);
+            }
+        }
+        if (total > MAX_MESSAGE_BYTES) {
+            KernelLog.warn("dropped a message on " + name + ": " + total + " bytes, more than the limit of " + MAX_MESSAGE_BYTES);
+            return Optional.empty();
         }
         WireCodec.Decoded d = codec.decode(frames);
         if (d.rejection().isPresent()) {

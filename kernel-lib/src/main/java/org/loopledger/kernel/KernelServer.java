@@ -21,7 +21,8 @@ import java.util.concurrent.ExecutionException;
  * heartbeat to exactly the connection file's transport, address and ports, and serves until a
  * {@code shutdown_request}. Each channel has its own thread; the shell thread runs cells one at a
  * time, the control thread stays free to interrupt them. Every request is bracketed by
- * {@code status: busy} and {@code status: idle} on iopub with the request as parent.
+ * {@code status: busy} and {@code status: idle} on iopub with the request as parent. The kernel ends with
+ * the process that started it ({@link ParentWatch}); its agent JVM ends with the kernel.
  */
 public final class KernelServer implements AutoCloseable {
     private static final int POLL_MS = 200;
@@ -40,6 +41,7 @@ public final class KernelServer implements AutoCloseable {
 
     /** Binds the sockets and starts serving; the session starts in the background meanwhile. */
     public static KernelServer start(ConnectionInfo connection, SessionOptions options) {
+        ParentWatch.start().ifPresent(pid -> KernelLog.info("the kernel ends when process " + pid + " ends"));
         KernelServer k = new KernelServer(connection, options);
         k.bindAndServe();
         return k;
@@ -66,6 +68,8 @@ public final class KernelServer implements AutoCloseable {
         ZMQ.Socket s = context.createSocket(type);
         s.setLinger(1000);
         s.setReceiveTimeOut(POLL_MS);
+        // a larger frame closes the sender's connection inside ZeroMQ before the kernel holds it in memory
+        s.setMaxMsgSize(Channel.MAX_MESSAGE_BYTES);
         s.bind(connection.endpoint(port));
         return s;
     }
@@ -87,25 +91,39 @@ public final class KernelServer implements AutoCloseable {
         }
     }
 
+    /**
+     * The loop of one socket thread. No exception or error ends it: what fails is logged (with a
+     * description that cannot fail in turn) and the next message is read.
+     */
     private void serve(Channel channel, RequestHandler handler, Replies replies) {
         while (running) {
             Optional<Message> next;
             try {
                 next = channel.receive();
-            } catch (RuntimeException e) {
+            } catch (Throwable e) {
                 if (!running) return;
-                KernelLog.warn("receive failed: " + e);
+                warnSafely("receive on " + channel.name() + " failed: ", e);
                 continue;
             }
             if (next.isEmpty()) continue;
             Message request = next.get();
             try {
                 iopub.status(request.header(), "busy");
-                handler.handle(request).ifPresent(r -> channel.send(replies.reply(request, r.type(), r.content())));
+                handler.handle(request, channel.name()).ifPresent(r -> channel.send(replies.reply(request, r.type(), r.content())));
                 iopub.status(request.header(), "idle");
-            } catch (RuntimeException | Error e) {
-                KernelLog.warn("failed to answer " + request + ": " + e);
+            } catch (Throwable e) {
+                if (!running) return;
+                warnSafely("failed to answer " + request + " on " + channel.name() + ": ", e);
             }
+        }
+    }
+
+    /** Logs a failure; never throws (a broken log must not end a socket thread either). */
+    private static void warnSafely(String what, Throwable e) {
+        try {
+            KernelLog.warn(what + e);
+        } catch (Throwable ignored) {
+            // nothing left to tell
         }
     }
 
@@ -115,8 +133,9 @@ public final class KernelServer implements AutoCloseable {
                 byte[] ping = hb.recv(0);
                 if (ping == null) continue;
                 hb.send(ping, 0);
-            } catch (RuntimeException e) {
+            } catch (Throwable e) {
                 if (!running) return;
+                warnSafely("heartbeat failed: ", e);
             }
         }
     }

@@ -31,6 +31,6 @@ final class Replies {
     }
 
     private static String username(JsonObject parent) {
-        return parent.has("username") ? parent.get("username").getAsString() : "loopledger";
+        return Message.stringOr(parent, "username", "loopledger");
     }
 }

@@ -28,8 +28,24 @@ final class RequestHandler {
         this.onShutdown = onShutdown;
     }
 
-    Optional<Reply> handle(Message m) {
+    /**
+     * Requests that use the JShell session, which runs one thing at a time: they belong on the shell
+     * channel. Sent on the control channel (which must stay free to interrupt a running cell) they get an
+     * error reply and the session is left alone.
+     */
+    static final java.util.Set<String> SHELL_ONLY = java.util.Set.of("execute_request", "complete_request", "inspect_request", "is_complete_request");
+
+    Optional<Reply> handle(Message m, String channel) {
         String type = m.type();
+        if ("control".equals(channel) && SHELL_ONLY.contains(type)) {
+            KernelLog.warn("refused " + type + " on the control channel");
+            JsonObject c = new JsonObject();
+            c.addProperty("status", "error");
+            c.addProperty("ename", "WrongChannel");
+            c.addProperty("evalue", type + " belongs on the shell channel; the control channel takes kernel_info_request, interrupt_request and shutdown_request");
+            c.add("traceback", new JsonArray());
+            return Optional.of(new Reply(type.replace("_request", "_reply"), c));
+        }
         try {
             return Optional.ofNullable(switch (type) {
                 case "kernel_info_request" -> new Reply("kernel_info_reply", KernelInfo.content());

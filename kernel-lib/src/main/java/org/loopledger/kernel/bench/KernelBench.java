@@ -11,21 +11,39 @@ import java.io.PrintStream;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.concurrent.TimeUnit;
 
 /**
  * Benchmark (not a test): our kernel against Debian's ipykernel in the same run, both driven by
- * {@code /usr/bin/python3} with jupyter_client: cold start to the first {@code 1+1} result and the
- * median round trip of a trivial cell, printed with ratios. Targets (issue 5): cold start no worse
- * than 2x ipykernel, trivial cell under 30 ms median.
+ * {@code /usr/bin/python3} with jupyter_client, printed with ratios:
+ * <ul>
+ *   <li>cold start to the first {@code 1+1} result and the median round trip of a trivial cell (issue 5
+ *       targets: cold start no worse than 2x ipykernel, trivial cell under 30 ms median);</li>
+ *   <li>output throughput (issue 12): 8 MB of {@code print} (80,000 lines of 100 bytes) and one 4 MB
+ *       HTML display (plain text would be shortened for display), seconds from the request to idle,
+ *       against ipykernel doing the same;</li>
+ *   <li>long cells (issue 12, ours only): statements per second in cells of 100, 1,000 and 3,000
+ *       statements; linear cost shows as a ratio near 1 between the rates at 3,000 and 100.</li>
+ * </ul>
  */
 public final class KernelBench {
+    static final int PRINT_LINES = 80_000;
+    static final int DISPLAY_CHARS = 4_000_000;
+    static final int[] CELL_SIZES = {100, 1000, 3000};
+
     private KernelBench() {}
 
     public static void main(String[] args) throws Exception {
         System.exit(run(System.out));
+    }
+
+    static String statements(int n) {
+        StringBuilder b = new StringBuilder("long total = 0;\n");
+        for (int i = 1; i < n; i++) b.append("total += ").append(i).append(";\n");
+        return b.toString();
     }
 
     public static int run(PrintStream out) throws IOException, InterruptedException {
@@ -35,28 +53,56 @@ public final class KernelBench {
         try (InputStream in = KernelBench.class.getResourceAsStream("bench.py")) {
             script = new String(in.readAllBytes(), StandardCharsets.UTF_8);
         }
-        Map<String, Object> input = Map.of("jupyter_path", dir.toString(), "rounds", 60,
-                "kernels", List.of(List.of("python3", "1+1"), List.of(Kernelspec.NAME, "1+1")));
+        Map<String, Object> python = Map.of("name", "python3", "trivial", "1+1", "throughput", Map.of(
+                "print_8mb", "line = 'x' * 99\nfor i in range(" + PRINT_LINES + "):\n    print(line)",
+                "display_4mb", "from IPython.display import display\ndisplay({'text/html': 'y' * " + DISPLAY_CHARS + "}, raw=True)"));
+        Map<String, String> cells = new LinkedHashMap<>();
+        for (int n : CELL_SIZES) cells.put(Integer.toString(n), statements(n));
+        Map<String, Object> ours = Map.of("name", Kernelspec.NAME, "trivial", "1+1", "throughput", Map.of(
+                "print_8mb", "String line = \"x\".repeat(99);\nfor (int i = 0; i < " + PRINT_LINES + "; i++) System.out.println(line);",
+                "display_4mb", "display(html(\"y\".repeat(" + DISPLAY_CHARS + ")));"),
+                "cells", cells);
+        Map<String, Object> input = Map.of("jupyter_path", dir.toString(), "rounds", 60, "kernels", List.of(python, ours));
         Process p = new ProcessBuilder("/usr/bin/python3", "-c", script).redirectError(ProcessBuilder.Redirect.INHERIT).start();
         try (OutputStream os = p.getOutputStream()) {
             os.write(new Gson().toJson(input).getBytes(StandardCharsets.UTF_8));
         }
         String json = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8);
-        if (!p.waitFor(10, TimeUnit.MINUTES) || p.exitValue() != 0) {
+        if (!p.waitFor(20, TimeUnit.MINUTES) || p.exitValue() != 0) {
             out.println("benchmark failed (needs Debian's python3-jupyter-client and python3-ipykernel): " + json);
             return 1;
         }
         JsonObject r = new Gson().fromJson(json, JsonObject.class);
         JsonObject py = r.getAsJsonObject("python3");
-        JsonObject ours = r.getAsJsonObject(Kernelspec.NAME);
-        out.printf("%-12s %14s %16s %12s%n", "kernel", "cold start s", "median cell ms", "p90 ms");
+        JsonObject ll = r.getAsJsonObject(Kernelspec.NAME);
+        out.printf("%-12s %14s %16s %12s %14s %16s%n", "kernel", "cold start s", "median cell ms", "p90 ms", "8 MB print s", "4 MB display s");
         for (String k : List.of("python3", Kernelspec.NAME)) {
             JsonObject o = r.getAsJsonObject(k);
-            out.printf("%-12s %14.2f %16.1f %12.1f%n", k, o.get("cold_start_s").getAsDouble(), o.get("median_ms").getAsDouble(), o.get("p90_ms").getAsDouble());
+            out.printf("%-12s %14.2f %16.1f %12.1f %14.2f %16.2f%n", k, o.get("cold_start_s").getAsDouble(), o.get("median_ms").getAsDouble(),
+                    o.get("p90_ms").getAsDouble(), seconds(o, "print_8mb"), seconds(o, "display_4mb"));
         }
         out.printf("ratio loopledger/ipykernel: cold start %.2fx (target <= 2), trivial cell %.2fx; trivial cell median %.1f ms (target < 30)%n",
-                ours.get("cold_start_s").getAsDouble() / py.get("cold_start_s").getAsDouble(),
-                ours.get("median_ms").getAsDouble() / py.get("median_ms").getAsDouble(), ours.get("median_ms").getAsDouble());
+                ll.get("cold_start_s").getAsDouble() / py.get("cold_start_s").getAsDouble(),
+                ll.get("median_ms").getAsDouble() / py.get("median_ms").getAsDouble(), ll.get("median_ms").getAsDouble());
+        out.printf("ratio loopledger/ipykernel: 8 MB print %.1fx, 4 MB display %.1fx (characters received: print %d vs %d, display %d vs %d)%n",
+                seconds(ll, "print_8mb") / seconds(py, "print_8mb"), seconds(ll, "display_4mb") / seconds(py, "display_4mb"),
+                chars(ll, "print_8mb"), chars(py, "print_8mb"), chars(ll, "display_4mb"), chars(py, "display_4mb"));
+        JsonObject c = ll.getAsJsonObject("cells");
+        double firstRate = 0;
+        for (int n : CELL_SIZES) {
+            double s = c.get(Integer.toString(n)).getAsDouble();
+            double rate = n / s;
+            if (firstRate == 0) firstRate = rate;
+            out.printf("long cell, %5d statements: %7.2f s, %8.1f statements/s, rate relative to %d statements %.2f%n", n, s, rate, CELL_SIZES[0], rate / firstRate);
+        }
         return 0;
+    }
+
+    private static double seconds(JsonObject o, String label) {
+        return o.getAsJsonObject(label).get("seconds").getAsDouble();
+    }
+
+    private static long chars(JsonObject o, String label) {
+        return o.getAsJsonObject(label).get("chars").getAsLong();
     }
 }

@@ -49,13 +49,20 @@ public final class Message {
         return buffers.stream().map(byte[]::clone).toList();
     }
 
-    /** {@code header.msg_type}, or "" when absent. */
+    /** {@code header.msg_type}, or "" when absent or not a string. Never throws. */
     public String type() {
-        return header.has("msg_type") ? header.get("msg_type").getAsString() : "";
+        return stringOr(header, "msg_type", "");
     }
 
+    /** Never throws, whatever the header holds. */
     @Override
     public String toString() {
-        return "Message[" + type() + " " + (header.has("msg_id") ? header.get("msg_id").getAsString() : "?") + "]";
+        return "Message[" + type() + " " + stringOr(header, "msg_id", "?") + "]";
+    }
+
+    /** {@code o.key} when it is a JSON string, else {@code fallback}. Never throws. */
+    public static String stringOr(JsonObject o, String key, String fallback) {
+        com.google.gson.JsonElement e = o == null ? null : o.get(key);
+        return WireCodec.isString(e) ? e.getAsString() : fallback;
     }
 }

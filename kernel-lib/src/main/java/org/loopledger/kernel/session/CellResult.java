@@ -21,10 +21,16 @@ public record CellResult(List<CellOutput> outputs) {
         return error().isEmpty();
     }
 
-    /** Collects outputs, merging adjacent pieces of one stream. Thread-safe. */
+    /**
+     * Collects outputs, merging adjacent pieces of one stream. Thread-safe. Linear in the size of the
+     * output: the stream being written grows in one builder (doubling) and becomes a string only when
+     * another output follows or the result is taken (stream text arrives in pieces of about 127 bytes).
+     */
     static final class Collector implements OutputListener {
         private final List<CellOutput> outputs = new ArrayList<>();
         private final OutputListener downstream;
+        private String openName;
+        private final StringBuilder openText = new StringBuilder();
 
         Collector(OutputListener downstream) {
             this.downstream = downstream;
@@ -32,10 +38,14 @@ public record CellResult(List<CellOutput> outputs) {
 
         @Override
         public synchronized void output(CellOutput o) {
-            int last = outputs.size() - 1;
-            if (o instanceof CellOutput.Stream s && last >= 0 && outputs.get(last) instanceof CellOutput.Stream p && p.name().equals(s.name())) {
-                outputs.set(last, new CellOutput.Stream(s.name(), p.text() + s.text()));
+            if (o instanceof CellOutput.Stream s) {
+                if (!s.name().equals(openName)) {
+                    closeStream();
+                    openName = s.name();
+                }
+                openText.append(s.text());
             } else {
+                closeStream();
                 outputs.add(o);
             }
             try {
@@ -45,7 +55,15 @@ public record CellResult(List<CellOutput> outputs) {
             }
         }
 
+        private void closeStream() {
+            if (openName == null) return;
+            outputs.add(new CellOutput.Stream(openName, openText.toString()));
+            openName = null;
+            openText.setLength(0);
+        }
+
         synchronized CellResult result() {
+            closeStream();
             return new CellResult(outputs);
         }
     }

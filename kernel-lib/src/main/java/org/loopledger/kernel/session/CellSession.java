@@ -115,53 +115,88 @@ public final class CellSession implements AutoCloseable {
     }
 
     private void runSnippets(String code, String label, OutputListener out) throws jdk.jshell.spi.ExecutionControl.ExecutionControlException {
-        List<CellSnippet> snippets = CellSnippet.split(shell.sourceCodeAnalysis(), code);
-        boolean shown = false;
-        for (int i = 0; i < snippets.size(); i++) {
-            if (interruptRequested) {
-                out.output(interrupted());
-                return;
-            }
-            CellSnippet snip = snippets.get(i);
-            List<SnippetEvent> events = shell.eval(snip.source());
-            if (!agentAlive()) throw new IllegalStateException("agent JVM ended");
-            Optional<CellOutput.Error> failure = Optional.empty();
-            SnippetEvent main = null;
-            for (SnippetEvent e : events) {
-                if (e.causeSnippet() == null) {
-                    main = e;
-                    origins.put(e.snippet().id(), new Tracebacks.Origin(label, snip.firstLine()));
+        List<CellSnippet> pieces = CellSnippet.split(shell.sourceCodeAnalysis(), code);
+        List<StatementBatches.Unit> units = StatementBatches.group(pieces);
+        boolean[] shown = {false};
+        for (int i = 0; i < units.size(); i++) {
+            StatementBatches.Unit unit = units.get(i);
+            boolean last = i == units.size() - 1;
+            Step step = evalOne(unit.snippet(), last, label, out, shown, unit.grouped());
+            if (step == Step.GROUP_REJECTED) {
+                // a compile error inside the group: run its pieces one by one, as an ungrouped cell would
+                for (CellSnippet part : unit.parts()) {
+                    step = evalOne(part, false, label, out, shown, false);
+                    if (step != Step.NEXT) break;
                 }
-                if (e.status() == Snippet.Status.OVERWRITTEN) shell.drop(e.snippet());
             }
-            if (main == null) continue;
-            if (main.status() == Snippet.Status.REJECTED) {
-                List<Diag> diags = shell.diagnostics(main.snippet()).toList();
-                shell.drop(main.snippet());
-                failure = Optional.of(Tracebacks.compileError(snip, diags));
-            } else if (main.exception() != null) {
-                failure = Optional.of(Tracebacks.runtimeError(main.exception(), origins, label));
-            } else if (interruptRequested) {
-                failure = Optional.of(interrupted());
-            } else if (main.status() == Snippet.Status.RECOVERABLE_DEFINED || main.status() == Snippet.Status.RECOVERABLE_NOT_DEFINED) {
-                List<String> unresolved = shell.unresolvedDependencies((jdk.jshell.DeclarationSnippet) main.snippet()).toList();
-                out.output(new CellOutput.Stream(CellOutput.Stream.STDERR, "note: line " + (snip.firstLine() + 1) + " is defined but cannot be used until "
-                        + String.join(", ", unresolved) + " " + (unresolved.size() == 1 ? "is" : "are") + " declared\n"));
+            if (step == Step.STOP) return;
+        }
+        if (!shown[0]) agent.forgetLast();
+    }
+
+    private enum Step { NEXT, STOP, GROUP_REJECTED }
+
+    private Step evalOne(CellSnippet snip, boolean last, String label, OutputListener out, boolean[] shown, boolean group)
+            throws jdk.jshell.spi.ExecutionControl.ExecutionControlException {
+        if (interruptRequested) {
+            out.output(interrupted());
+            return Step.STOP;
+        }
+        List<SnippetEvent> events = shell.eval(snip.source());
+        if (!agentAlive()) throw new IllegalStateException("agent JVM ended");
+        Optional<CellOutput.Error> failure = Optional.empty();
+        SnippetEvent main = null;
+        for (SnippetEvent e : events) {
+            if (e.causeSnippet() == null) {
+                main = e;
+                origins.put(e.snippet().id(), new Tracebacks.Origin(label, snip.firstLine()));
             }
-            if (failure.isPresent()) {
-                out.output(failure.get());
-                agent.forgetLast();
-                return;
+            if (e.status() == Snippet.Status.OVERWRITTEN) shell.drop(e.snippet());
+        }
+        if (main == null) return Step.NEXT;
+        if (main.status() == Snippet.Status.REJECTED) {
+            List<Diag> diags = shell.diagnostics(main.snippet()).toList();
+            shell.drop(main.snippet());
+            if (group) return Step.GROUP_REJECTED;
+            failure = Optional.of(Tracebacks.compileError(snip, diags));
+        } else if (main.exception() != null) {
+            failure = Optional.of(Tracebacks.runtimeError(main.exception(), origins, label));
+        } else if (interruptRequested) {
+            failure = Optional.of(interrupted());
+        } else if (main.status() == Snippet.Status.RECOVERABLE_DEFINED || main.status() == Snippet.Status.RECOVERABLE_NOT_DEFINED) {
+            List<String> unresolved = shell.unresolvedDependencies((jdk.jshell.DeclarationSnippet) main.snippet()).toList();
+            out.output(new CellOutput.Stream(CellOutput.Stream.STDERR, "note: line " + (snip.firstLine() + 1) + " is defined but cannot be used until "
+                    + String.join(", ", unresolved) + " " + (unresolved.size() == 1 ? "is" : "are") + " declared\n"));
+        }
+        if (failure.isPresent()) {
+            out.output(failure.get());
+            agent.forgetLast();
+            return Step.STOP;
+        }
+        if (last && isExpression(main.snippet())) {
+            String json = agent.renderLast();
+            if (json != null) {
+                out.output(new CellOutput.Result(MimeBundle.fromJson(json)));
+                shown[0] = true;
             }
-            if (i == snippets.size() - 1 && isExpression(main.snippet())) {
-                String json = agent.renderLast();
-                if (json != null) {
-                    out.output(new CellOutput.Result(MimeBundle.fromJson(json)));
-                    shown = true;
-                }
+        } else {
+            forgetIfTransient(main.snippet());
+        }
+        return Step.NEXT;
+    }
+
+    /**
+     * Drops a statement (or an assignment or variable-value expression) once it has run: it declares
+     * nothing, and every snippet JShell keeps makes each later compilation a little slower.
+     */
+    private void forgetIfTransient(Snippet s) {
+        if (s.kind() == Snippet.Kind.STATEMENT || s.kind() == Snippet.Kind.EXPRESSION) {
+            try {
+                shell.drop(s);
+            } catch (IllegalArgumentException | IllegalStateException e) {
+                // already gone
             }
         }
-        if (!shown) agent.forgetLast();
     }
 
     private static boolean isExpression(Snippet s) {

@@ -2,7 +2,6 @@ package org.loopledger.kernel.session;
 
 import org.loopledger.display.MimeBundle;
 
-import java.io.ByteArrayOutputStream;
 import java.io.OutputStream;
 import java.nio.charset.StandardCharsets;
 import java.util.function.Consumer;
@@ -13,7 +12,10 @@ import java.util.function.Consumer;
  */
 final class DisplayFrameSink extends OutputStream {
     private final Consumer<MimeBundle> target;
-    private final ByteArrayOutputStream pending = new ByteArrayOutputStream();
+    /** Bytes received and not yet consumed: {@code buffer[start, end)}. Grows by doubling; linear in the total. */
+    private byte[] buffer = new byte[8192];
+    private int start;
+    private int end;
 
     DisplayFrameSink(Consumer<MimeBundle> target) {
         this.target = target;
@@ -26,15 +28,15 @@ final class DisplayFrameSink extends OutputStream {
 
     @Override
     public synchronized void write(byte[] b, int off, int len) {
-        pending.write(b, off, len);
-        byte[] all = pending.toByteArray();
-        int pos = 0;
-        while (all.length - pos >= 4) {
-            int n = ((all[pos] & 0xff) << 24) | ((all[pos + 1] & 0xff) << 16) | ((all[pos + 2] & 0xff) << 8) | (all[pos + 3] & 0xff);
+        ensureRoom(len);
+        System.arraycopy(b, off, buffer, end, len);
+        end += len;
+        while (end - start >= 4) {
+            int n = ((buffer[start] & 0xff) << 24) | ((buffer[start + 1] & 0xff) << 16) | ((buffer[start + 2] & 0xff) << 8) | (buffer[start + 3] & 0xff);
             if (n < 0) throw new IllegalStateException("corrupt display frame length " + n);
-            if (all.length - pos - 4 < n) break;
-            String json = new String(all, pos + 4, n, StandardCharsets.UTF_8);
-            pos += 4 + n;
+            if (end - start - 4 < n) break;
+            String json = new String(buffer, start + 4, n, StandardCharsets.UTF_8);
+            start += 4 + n;
             MimeBundle bundle;
             try {
                 bundle = MimeBundle.fromJson(json);
@@ -43,7 +45,22 @@ final class DisplayFrameSink extends OutputStream {
             }
             target.accept(bundle);
         }
-        pending.reset();
-        pending.write(all, pos, all.length - pos);
+        if (start == end) {
+            start = 0;
+            end = 0;
+        }
+    }
+
+    private void ensureRoom(int len) {
+        if (buffer.length - end >= len) return;
+        int used = end - start;
+        byte[] into = buffer;
+        if (used + len > buffer.length / 2) {
+            into = new byte[(int) Math.min(Integer.MAX_VALUE - 8, Math.max(2L * buffer.length, (long) used + len))];
+        }
+        System.arraycopy(buffer, start, into, 0, used);
+        buffer = into;
+        start = 0;
+        end = used;
     }
 }

@@ -92,7 +92,9 @@ public final class AgentLauncher implements ExecutionControlProvider {
             Map<String, OutputStream> outputs = Map.of("out", env.userOut(), "err", env.userErr(), DISPLAY_CHANNEL, displaySink);
             Map<String, InputStream> inputs = Map.of("in", env.userIn());
             AgentConnection made = new AgentConnection(process, stop, stopOut);
-            ExecutionControl control = Util.remoteInputOutput(commands.getInputStream(), commands.getOutputStream(), outputs, inputs,
+            // buffered: the agent's output arrives in packets of at most 127 bytes, read a few bytes at a time
+            ExecutionControl control = Util.remoteInputOutput(new java.io.BufferedInputStream(commands.getInputStream(), 1 << 16),
+                    commands.getOutputStream(), outputs, inputs,
                     (objIn, objOut) -> new LauncherControl(objOut, objIn, made));
             made.control(control);
             process.onExit().thenRun(env::closeDown);

@@ -3,6 +3,8 @@ package org.loopledger.kernel.session.agent;
 import jdk.jshell.execution.Util;
 import org.loopledger.display.DisplayChannel;
 
+import java.io.BufferedInputStream;
+import java.io.BufferedOutputStream;
 import java.io.InputStream;
 import java.io.PrintStream;
 import java.net.InetAddress;
@@ -19,8 +21,15 @@ import java.util.function.Consumer;
  * about 25 ms) and a stop channel on which each byte means "stop the running snippet".
  * Standard output, standard error and the display channel are multiplexed on the command stream by
  * {@link Util#forwardExecutionControlAndIO}, so their order is the order in which the cell wrote them.
+ *
+ * <p>The agent never outlives the kernel or runner that started it, even in the middle of a cell (a cell
+ * in a tight loop never returns to read the command stream): it halts at once when the stop channel
+ * reaches its end (the launcher closed it or died, whatever the signal) and, as a second guard, when its
+ * parent process is gone (polled every {@value #PARENT_POLL_MS} ms through {@link ProcessHandle}).
  */
 public final class AgentMain {
+    static final long PARENT_POLL_MS = 500;
+
     private AgentMain() {}
 
     public static void main(String[] args) throws Exception {
@@ -34,20 +43,44 @@ public final class AgentMain {
         Thread stopper = new Thread(() -> listenForStops(stop, control), "loopledger-stop");
         stopper.setDaemon(true);
         stopper.start();
+        Thread parentWatch = new Thread(AgentMain::watchParent, "loopledger-parent-watch");
+        parentWatch.setDaemon(true);
+        parentWatch.start();
         Map<String, Consumer<java.io.OutputStream>> outputs = Map.of(
                 "out", st -> System.setOut(new PrintStream(st, true, StandardCharsets.UTF_8)),
                 "err", st -> System.setErr(new PrintStream(st, true, StandardCharsets.UTF_8)),
                 AgentLauncher.DISPLAY_CHANNEL, DisplayChannel::install);
         Map<String, Consumer<InputStream>> inputs = Map.of("in", System::setIn);
-        Util.forwardExecutionControlAndIO(control, commands.getInputStream(), commands.getOutputStream(), outputs, inputs);
+        // Buffered: JShell's multiplexer writes output in packets of at most 127 bytes and flushes its
+        // delegate at the end of every write, so the buffer only turns a write's packets into one system call.
+        Util.forwardExecutionControlAndIO(control, new BufferedInputStream(commands.getInputStream(), 1 << 16),
+                new BufferedOutputStream(commands.getOutputStream(), 1 << 16), outputs, inputs);
         System.exit(0);
     }
 
     private static void listenForStops(Socket stop, AgentControl control) {
         try (InputStream in = stop.getInputStream()) {
             while (in.read() >= 0) control.stopClientCode();
-        } catch (Exception e) {
-            // the launcher went away: the command stream ends too and main exits
+        } catch (Throwable e) {
+            // the launcher went away
+        }
+        // End of the stop channel: the launcher closed the session or is gone. Nobody can read a result
+        // any more, so end without waiting for the running cell (exit would wait for shutdown hooks a cell
+        // may have added).
+        Runtime.getRuntime().halt(0);
+    }
+
+    private static void watchParent() {
+        long parent = ProcessHandle.current().parent().map(ProcessHandle::pid).orElse(1L);
+        if (parent <= 1) return;
+        while (true) {
+            try {
+                Thread.sleep(PARENT_POLL_MS);
+            } catch (InterruptedException e) {
+                return;
+            }
+            long now = ProcessHandle.current().parent().map(ProcessHandle::pid).orElse(1L);
+            if (now != parent || ProcessHandle.of(parent).map(p -> !p.isAlive()).orElse(true)) Runtime.getRuntime().halt(1);
         }
     }
 }
