@@ -40,12 +40,16 @@ final class DatasetsCommand implements Callable<Integer> {
             for (GantryLoadCase c : GantryLoadCase.values()) {
                 OutputTargets.check(folder.resolve(c.fileName()), OutputTargets.Kind.CSV_LOG, "the dataset", false);
             }
+            Path scope = folder.resolve(org.loopledger.ident.demo.LinearAxisScope.FILE);
+            OutputTargets.check(scope, OutputTargets.Kind.SCOPE_LOG, "the dataset", false);
             OutputTargets.check(folder.resolve("README.md"), OutputTargets.Kind.DATASETS_README, "the README", false);
             for (GantryLoadCase c : GantryLoadCase.values()) {
                 Path f = folder.resolve(c.fileName());
                 AtomicFiles.writeString(f, DemoDatasets.csv(c));
                 System.err.println("loopledger: wrote " + f + " (SYNTHETIC, load case " + c.name().toLowerCase(java.util.Locale.ROOT) + ")");
             }
+            AtomicFiles.writeString(scope, org.loopledger.ident.demo.LinearAxisScope.csv());
+            System.err.println("loopledger: wrote " + scope + " (SYNTHETIC, linear axis Y, scope export)");
             AtomicFiles.writeString(folder.resolve("README.md"), DemoDatasets.readme());
             System.err.println("loopledger: wrote " + folder.resolve("README.md"));
             return 0;

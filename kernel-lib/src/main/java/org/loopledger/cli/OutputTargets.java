@@ -25,6 +25,7 @@ final class OutputTargets {
     /** What a command writes. */
     enum Kind {
         NOTEBOOK("notebook (.ipynb)"), HTML("HTML file"), CSV_LOG("drive log CSV with header " + DemoDatasets.HEADER),
+        SCOPE_LOG("demo scope export with first line '" + org.loopledger.ident.demo.LinearAxisScope.FIRST_LINE + "'"),
         DATASETS_README("demo datasets README (first line '" + DemoDatasets.readmeTitle() + "')");
 
         final String description;
@@ -102,6 +103,7 @@ final class OutputTargets {
                 case HTML -> looksLikeHtml(file);
                 case NOTEBOOK -> looksLikeNotebook(file);
                 case CSV_LOG -> firstLine(file).equals(DemoDatasets.HEADER);
+                case SCOPE_LOG -> firstLine(file).equals(org.loopledger.ident.demo.LinearAxisScope.FIRST_LINE);
                 case DATASETS_README -> firstLine(file).equals(DemoDatasets.readmeTitle());
             };
         } catch (IOException | RuntimeException e) {

@@ -124,7 +124,8 @@ public final class OutputComparison {
         }
     }
 
-    private static JsonElement sorted(JsonElement e) {
+    /** A copy of {@code e} with object keys sorted at every level. */
+    static JsonElement sorted(JsonElement e) {
         if (e.isJsonObject()) {
             TreeMap<String, JsonElement> m = new TreeMap<>();
             for (var en : e.getAsJsonObject().entrySet()) m.put(en.getKey(), sorted(en.getValue()));

@@ -7,7 +7,6 @@ import com.google.gson.JsonParser;
 
 import java.util.ArrayList;
 import java.util.List;
-import java.util.TreeMap;
 
 /**
  * The plain-text form of a notebook: a Java source file that diffs like code.
@@ -264,22 +263,6 @@ public final class PlainTextNotebook {
     }
 
     private static String sortedCompact(JsonElement e) {
-        return sorted(e).toString();
-    }
-
-    private static JsonElement sorted(JsonElement e) {
-        if (e.isJsonObject()) {
-            TreeMap<String, JsonElement> m = new TreeMap<>();
-            for (var en : e.getAsJsonObject().entrySet()) m.put(en.getKey(), sorted(en.getValue()));
-            JsonObject o = new JsonObject();
-            m.forEach(o::add);
-            return o;
-        }
-        if (e.isJsonArray()) {
-            var a = new com.google.gson.JsonArray();
-            for (JsonElement x : e.getAsJsonArray()) a.add(sorted(x));
-            return a;
-        }
-        return e;
+        return OutputComparison.sorted(e).toString();
     }
 }

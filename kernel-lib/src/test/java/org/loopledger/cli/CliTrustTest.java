@@ -288,6 +288,8 @@ class CliTrustTest {
         for (GantryLoadCase c : GantryLoadCase.values()) {
             assertEquals(sha256(Files.readAllBytes(committed.resolve(c.fileName()))), sha256(Files.readAllBytes(out.resolve(c.fileName()))), c.fileName());
         }
+        String scope = org.loopledger.ident.demo.LinearAxisScope.FILE;
+        assertEquals(sha256(Files.readAllBytes(committed.resolve(scope))), sha256(Files.readAllBytes(out.resolve(scope))), scope);
         assertEquals(Files.readString(committed.resolve("README.md")), Files.readString(out.resolve("README.md")));
         assertTrue(Files.readString(committed.resolve("README.md")).contains("./loopledger datasets"), "the README names the command that exists");
         // Again over its own files: allowed (same kind).

@@ -65,7 +65,7 @@ public final class DemoDatasets {
     }
 
     /** The first line of {@link #readme()}, by which a README written here is recognised. */
-    public static String readmeTitle() { return "# Demo datasets: SYNTHETIC laser-marking gantry, axis X"; }
+    public static String readmeTitle() { return readme().lines().findFirst().orElseThrow(); }
 
     public static String readme() {
         DriveLoopSettings s = DriveLoopSettings.demo();
