@@ -22,7 +22,7 @@ import java.util.List;
  * @param bindingConstraint the limit with the least headroom, or the one that fails
  * @param trace             search steps, one line each
  * @param evaluations       loop-gain evaluations screened
- * @param elapsedMs         wall time of the search in ms
+ * @param elapsedMs         wall time of the search in ms (left out of {@link #toString()} and the display, which must reproduce)
  * @param motion            rotary or linear axis, as the load cases said: the units the gains are shown in
  */
 public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, TuningSpec spec, List<LoadCaseFigures> cases, boolean limitsMet,
@@ -118,7 +118,7 @@ public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, Tun
         sb.append("  ").append(piv.describe(motion)).append('\n');
         sb.append("  filters: ").append(filters.isEmpty() ? "none" : filters.toString()).append('\n');
         for (LoadCaseFigures c : cases) sb.append("  ").append(c).append('\n');
-        sb.append(String.format(java.util.Locale.ROOT, "  %d loop evaluations in %.1f ms", evaluations, elapsedMs));
+        sb.append("  ").append(evaluations).append(" loop evaluations"); // not the wall time: the text must reproduce from run to run
         return sb.toString();
     }
 

@@ -144,6 +144,19 @@ class AutoTuneTest {
         assertFalse(r.reanalysisMeetsSpec(), "44.98 deg does not meet PM >= 45 deg");
     }
 
+    @Test
+    void theTextFormDoesNotDependOnTheWallTime() {
+        // a notebook shows the result's text, and `verify` must find it as stored: the search's wall time
+        // varies from run to run, so it stays out of the text (as it stays out of the HTML)
+        Margins m = Margins.of(TransferFunction.continuous(new double[] {1}, new double[] {1, 1, 0}));
+        List<LoadCaseFigures> cases = List.of(new LoadCaseFigures("only", m, m, m));
+        TuningResult fast = new TuningResult(org.loopledger.control.Piv.of(1, 1, 0), FilterChain.none(), DriveTiming.continuous(),
+                TuningSpec.defaults(), cases, true, List.of(), "x", List.of(), 1310, 166.8);
+        TuningResult slow = new TuningResult(fast.piv(), fast.filters(), fast.timing(), fast.spec(), cases, true, List.of(), "x", List.of(), 1310, 670.4);
+        assertEquals(fast.toString(), slow.toString());
+        assertTrue(fast.toString().endsWith("1310 loop evaluations"), fast.toString());
+    }
+
     /** The trace's final statement names the parameters the result carries (as {@code Units.g4} prints them). */
     static void assertChosenStatementNamesTheGains(TuningResult t) {
         String last = t.trace().get(t.trace().size() - 1);
