@@ -43,6 +43,46 @@ public final class Spec {
 
     public static Builder builder() { return new Builder(); }
 
+    /** A builder holding this spec's requirements, to add the ones not yet set (each may still be set once). */
+    public Builder toBuilder() {
+        Builder b = new Builder();
+        b.minBandwidthRadPerS = minBandwidthRadPerS;
+        b.minPhaseMarginDeg = minPhaseMarginDeg;
+        b.minGainMarginDb = minGainMarginDb;
+        b.minLowerGainMarginDb = minLowerGainMarginDb;
+        b.maxSensitivityPeak = maxSensitivityPeak;
+        b.maxComplementaryPeak = maxComplementaryPeak;
+        b.minDelayMarginS = minDelayMarginS;
+        b.requireStable = requireStable;
+        return b;
+    }
+
+    private static OptionalDouble opt(double v) { return Double.isNaN(v) ? OptionalDouble.empty() : OptionalDouble.of(v); }
+
+    /** Minimum closed-loop bandwidth in Hz, if required. */
+    public OptionalDouble minBandwidthHz() { return Double.isNaN(minBandwidthRadPerS) ? OptionalDouble.empty() : OptionalDouble.of(Units.radPerSToHz(minBandwidthRadPerS)); }
+
+    /** Minimum phase margin in degrees, if required. */
+    public OptionalDouble minPhaseMarginDeg() { return opt(minPhaseMarginDeg); }
+
+    /** Minimum gain margin (increase) in dB, if required. */
+    public OptionalDouble minGainMarginDb() { return opt(minGainMarginDb); }
+
+    /** Minimum gain margin for a decrease in dB (a positive number), if required. */
+    public OptionalDouble minLowerGainMarginDb() { return opt(minLowerGainMarginDb); }
+
+    /** Maximum sensitivity peak Ms as a ratio, if required. */
+    public OptionalDouble maxSensitivityPeak() { return opt(maxSensitivityPeak); }
+
+    /** Maximum complementary sensitivity peak Mt as a ratio, if required. */
+    public OptionalDouble maxComplementaryPeak() { return opt(maxComplementaryPeak); }
+
+    /** Minimum delay margin in seconds, if required. */
+    public OptionalDouble minDelayMarginS() { return opt(minDelayMarginS); }
+
+    /** Whether closed-loop stability is required. */
+    public boolean requiresStability() { return requireStable; }
+
     /** Builder; each limit may be set once. NaN marks "not required". */
     public static final class Builder {
         private double minBandwidthRadPerS = Double.NaN;
@@ -75,12 +115,20 @@ public final class Spec {
             return this;
         }
 
-        /** Phase margin at every gain crossover at least {@code deg} (0 &lt; deg &lt; 180). */
+        /**
+         * Phase margin at every gain crossover at least {@code deg} (0 &lt; deg &lt; 90).
+         *
+         * <p>One rule for checks and for the tuner ({@code tune.TuningSpec} holds a Spec). 90° is excluded: a
+         * loop with an integrator and any lag (a servo velocity loop with PI action, a position loop around it,
+         * sampling delay) has arg L below −90° at its crossover, so a limit of 90° or more could never be met and
+         * only hides a typo; common practice puts phase-margin limits at 30 to 60°.
+         */
         public Builder minPhaseMarginDeg(double deg) {
             once(minPhaseMarginDeg, "minimum phase margin");
-            if (!(finite(deg, "minimum phase margin") > 0 && deg < 180)) {
-                throw new IllegalArgumentException("minimum phase margin must lie in (0, 180) deg, got " + deg
-                        + " deg; a margin of 0 or less allows an unstable loop (typical targets: 30 to 60 deg)");
+            if (!(finite(deg, "minimum phase margin") > 0 && deg < 90)) {
+                throw new IllegalArgumentException("minimum phase margin must lie in (0, 90) deg, got " + deg
+                        + " deg; a margin of 0 or less allows an unstable loop, 90 or more no loop with an integrator"
+                        + " and any lag can meet (typical limits: 30 to 60 deg)");
             }
             minPhaseMarginDeg = deg;
             return this;

@@ -51,7 +51,7 @@ class SpecTest {
     @Test
     void nonsenseLimitsRejected() {
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> Spec.builder().minPhaseMarginDeg(-10));
-        assertTrue(e.getMessage().contains("-10") && e.getMessage().contains("(0, 180)"), e.getMessage());
+        assertTrue(e.getMessage().contains("-10") && e.getMessage().contains("(0, 90)"), e.getMessage());
         assertThrows(IllegalArgumentException.class, () -> Spec.builder().minPhaseMarginDeg(200));
         e = assertThrows(IllegalArgumentException.class, () -> Spec.builder().minGainMarginDb(0));
         assertTrue(e.getMessage().contains("positive"), e.getMessage());
