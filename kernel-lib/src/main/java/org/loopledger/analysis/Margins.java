@@ -189,7 +189,8 @@ public final class Margins {
         if (l.isMeasured()) {
             int size = l.size();
             OptionalDouble tsCopy = l.sampleTimeS();
-            source = () -> "measured data, " + size + " points, " + Fmt.hz(loW) + " .. " + Fmt.hz(hiW)
+            String origin = l instanceof MeasuredLoop ml && ml.computedFromModel() ? "model response on a grid, " : "measured data, ";
+            source = () -> origin + size + " points, " + Fmt.hz(loW) + " .. " + Fmt.hz(hiW)
                     + (tsCopy.isPresent() ? ", sampled at " + org.loopledger.lti.Units.formatHz(1 / tsCopy.getAsDouble()) : "");
         } else {
             String d = l.describe();
@@ -252,14 +253,17 @@ public final class Margins {
         return Optional.ofNullable(best);
     }
 
-    /** The gain crossover with the smallest phase margin (empty: no gain crossover). */
-    public Optional<GainCrossover> phaseMargin() {
+    /**
+     * The gain crossover with the smallest phase margin (empty: no gain crossover); its margin is
+     * {@link #phaseMarginDeg}. (Named for what it returns, a crossover, not a margin.)
+     */
+    public Optional<GainCrossover> phaseMarginCrossover() {
         return gainCrossovers.stream().min((a, b) -> Double.compare(a.phaseMarginDeg(), b.phaseMarginDeg()));
     }
 
     /** Smallest phase margin in degrees, empty when there is no gain crossover. */
     public OptionalDouble phaseMarginDeg() {
-        return phaseMargin().map(g -> OptionalDouble.of(g.phaseMarginDeg())).orElse(OptionalDouble.empty());
+        return phaseMarginCrossover().map(g -> OptionalDouble.of(g.phaseMarginDeg())).orElse(OptionalDouble.empty());
     }
 
     /** Upper gain margin in dB, empty when there is none. */
@@ -322,8 +326,8 @@ public final class Margins {
         b.append("Margins (").append(source.get()).append(")\n");
         b.append("  gain margin (increase): ").append(upperGainMargin().map(p -> Fmt.db(p.gainMarginDb()) + " (x" + Fmt.num(p.gainMarginRatio()) + ") at " + Fmt.hz(p.omegaRadPerS())).orElse(none())).append('\n');
         b.append("  gain margin (decrease): ").append(lowerGainMargin().map(p -> Fmt.db(p.gainMarginDb()) + " (x" + Fmt.num(p.gainMarginRatio()) + ") at " + Fmt.hz(p.omegaRadPerS())).orElse(none())).append('\n');
-        b.append("  phase margin:           ").append(phaseMargin().map(g -> Fmt.deg(g.phaseMarginDeg()) + " at " + Fmt.hz(g.omegaRadPerS())).orElse(none())).append('\n');
-        b.append("  delay margin:           ").append(phaseMargin().isPresent() ? Fmt.seconds(delayMarginS().getAsDouble())
+        b.append("  phase margin:           ").append(phaseMarginCrossover().map(g -> Fmt.deg(g.phaseMarginDeg()) + " at " + Fmt.hz(g.omegaRadPerS())).orElse(none())).append('\n');
+        b.append("  delay margin:           ").append(phaseMarginCrossover().isPresent() ? Fmt.seconds(delayMarginS().getAsDouble())
                 + (delayMarginSamples().isPresent() ? " (" + Fmt.num(delayMarginSamples().getAsDouble()) + " samples)" : "") : none()).append('\n');
         b.append("  Ms = max|S|:            ").append(sensitivityPeak).append(", modulus margin 1/Ms = ").append(Fmt.num(modulusMargin())).append('\n');
         b.append("  Mt = max|T|:            ").append(complementaryPeak).append('\n');

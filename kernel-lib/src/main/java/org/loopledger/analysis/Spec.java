@@ -230,7 +230,7 @@ public final class Spec {
             }
         }
         if (!Double.isNaN(minPhaseMarginDeg)) {
-            var g = m.phaseMargin();
+            var g = m.phaseMarginCrossover();
             if (g.isPresent()) {
                 double pm = g.get().phaseMarginDeg();
                 rows.add(row("phase margin", ">= " + Fmt.deg(minPhaseMarginDeg), Fmt.deg(pm), pm >= minPhaseMarginDeg, pm, minPhaseMarginDeg,

@@ -179,7 +179,7 @@ public final class DriveTiming {
     public Frf factor(double[] omegaRadPerS) {
         double[] re = ComplexArrays.ones(omegaRadPerS.length), im = new double[omegaRadPerS.length];
         multiplyFactor(omegaRadPerS, re, im);
-        return Frf.ofParts(omegaRadPerS, re, im);
+        return Frf.ofParts(omegaRadPerS, re, im).asComputedFromModel();
     }
 
     @Override public boolean equals(Object o) {
