@@ -103,6 +103,17 @@ public final class Piv {
 
     @Override public boolean equals(Object o) { return o instanceof Piv p && p.kp == kp && p.velocity.equals(velocity); }
 
+    /**
+     * Whether K<sub>p</sub>, K<sub>v</sub> and ω<sub>i</sub> agree with {@code other} within {@code relativeTolerance}
+     * (relative to the larger of each pair). For round trips PIV → PID → PIV, where {@link #equals} fails on rounding.
+     */
+    public boolean isCloseTo(Piv other, double relativeTolerance) {
+        Objects.requireNonNull(other, "other");
+        if (!(relativeTolerance >= 0)) throw new IllegalArgumentException("relative tolerance must be non-negative, got " + relativeTolerance);
+        return Pid.close(kp, other.kp, relativeTolerance) && Pid.close(velocity.velocityGain(), other.velocity.velocityGain(), relativeTolerance)
+                && Pid.close(velocity.integralCornerRadPerS(), other.velocity.integralCornerRadPerS(), relativeTolerance);
+    }
+
     @Override public int hashCode() { return Objects.hash(kp, velocity); }
 
     /** As {@link #describe(Motion)} for a rotary axis. */
