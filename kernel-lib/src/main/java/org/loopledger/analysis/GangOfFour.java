@@ -1,5 +1,6 @@
 package org.loopledger.analysis;
 
+import org.loopledger.lti.Units;
 import org.loopledger.frf.Frf;
 import org.loopledger.lti.Polynomial;
 import org.loopledger.lti.TransferFunction;
@@ -30,7 +31,7 @@ public final class GangOfFour {
             double lr = pr[i] * cr[i] - pi[i] * ci[i], li = pr[i] * ci[i] + pi[i] * cr[i];
             double dr = 1 + lr, di = li, dd = dr * dr + di * di;
             if (dd == 0) {
-                throw new IllegalArgumentException("1 + PC = 0 at " + Fmt.hz(w[i]) + ": the loop is exactly on -1 there and S is infinite");
+                throw new IllegalArgumentException("1 + PC = 0 at " + Units.formatRadPerSAsHz(w[i]) + ": the loop is exactly on -1 there and S is infinite");
             }
             // S = 1/(1+L)
             sr[i] = dr / dd;
@@ -125,11 +126,11 @@ public final class GangOfFour {
         double[] m = f.magnitude();
         int k = 0;
         for (int i = 1; i < m.length; i++) if (m[i] > m[k]) k = i;
-        return "  peak |" + name + "| = " + Fmt.num(m[k]) + " (" + Fmt.db(20 * Math.log10(m[k])) + ") at " + Fmt.hz(f.omegaAt(k)) + "\n";
+        return "  peak |" + name + "| = " + Units.g4(m[k]) + " (" + Units.formatDb(20 * Math.log10(m[k])) + ") at " + Units.formatRadPerSAsHz(f.omegaAt(k)) + "\n";
     }
 
     @Override public String toString() {
-        return ("Gang of Four on " + s.size() + " points, " + Fmt.hz(s.minOmegaRadPerS()) + " .. " + Fmt.hz(s.maxOmegaRadPerS())
+        return ("Gang of Four on " + s.size() + " points, " + Units.formatRadPerSAsHz(s.minOmegaRadPerS()) + " .. " + Units.formatRadPerSAsHz(s.maxOmegaRadPerS())
                 + (exact != null ? " (exact transfer functions available)" : "") + "\n"
                 + peak("S", s) + peak("T", t) + peak("PS", ps) + peak("CS", cs)).stripTrailing();
     }

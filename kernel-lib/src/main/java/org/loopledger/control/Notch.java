@@ -119,8 +119,8 @@ public final class Notch implements Filter {
     @Override public void requireBelowNyquist(double sampleRateHz) { Checks.belowNyquist(centreRadPerS, sampleRateHz, "notch centre"); }
 
     @Override public String describe() {
-        return "notch " + Checks.hz(centreRadPerS) + ", depth " + (isFullDepth() ? "full" : Units.g4(depthDb) + " dB") + ", width "
-                + Checks.hz(widthRadPerS) + " (Q " + Units.g4(q()) + ")";
+        return "notch " + Units.formatRadPerSAsHz(centreRadPerS) + ", depth " + (isFullDepth() ? "full" : Units.g4(depthDb) + " dB") + ", width "
+                + Units.formatRadPerSAsHz(widthRadPerS) + " (Q " + Units.g4(q()) + ")";
     }
 
     @Override public String toString() { return describe(); }

@@ -90,7 +90,7 @@ public final class Pid {
             double re = -b / (2 * a), im = Math.sqrt(-disc) / (2 * a);
             throw new IllegalArgumentException("this PID's numerator " + Units.g4(a) + " s^2 + " + Units.g4(b) + " s + " + Units.g4(c)
                     + " has complex roots " + Units.g4(re) + " ± j" + Units.g4(im) + " rad/s (natural frequency "
-                    + Checks.hz(Math.sqrt(c / a)) + ", damping " + Units.g4(b / (2 * Math.sqrt(a * c))) + "); a PIV's zeros -Kp and -ωi "
+                    + Units.formatRadPerSAsHz(Math.sqrt(c / a)) + ", damping " + Units.g4(b / (2 * Math.sqrt(a * c))) + "); a PIV's zeros -Kp and -ωi "
                     + "are real, so no PIV equals it. Raise KP or lower KI·KD until KP² ≥ 4·KI·KD (with τ: (KP + KI·τ)² ≥ 4·KI·(KP·τ + KD))");
         }
         double[] z = zeros(a, b, c);
@@ -150,7 +150,7 @@ public final class Pid {
         if (Math.abs(kpPos - wi) <= 1e-12 * Math.max(kpPos, wi)) return List.of();
         return List.of("the PID's zeros " + Units.g4(Math.min(kpPos, wi)) + " and " + Units.g4(Math.max(kpPos, wi))
                 + " rad/s are interchangeable; " + rule + " gives Kp = " + Units.g4(kpPos) + " 1/s, integral corner "
-                + Checks.hz(wi) + "; the other gives Kp = " + Units.g4(wi) + " 1/s, integral corner " + Checks.hz(kpPos)
+                + Units.formatRadPerSAsHz(wi) + "; the other gives Kp = " + Units.g4(wi) + " 1/s, integral corner " + Units.formatRadPerSAsHz(kpPos)
                 + " (same single-loop transfer function, different reference response): pick the one that matches the drive");
     }
 
@@ -183,6 +183,6 @@ public final class Pid {
     public String describe(Motion motion) {
         String x = motion.positionUnit();
         return "PID: KP = " + Units.g4(kp) + " per " + x + ", KI = " + Units.g4(ki) + " per " + x + "·s, KD = " + Units.g4(kd) + " per " + motion.velocityUnit() + ", "
-                + (tau > 0 ? "derivative filter " + Checks.hz(1 / tau) + " (τ = " + Units.g4(tau) + " s)" : "no derivative filter");
+                + (tau > 0 ? "derivative filter " + Units.formatRadPerSAsHz(1 / tau) + " (τ = " + Units.g4(tau) + " s)" : "no derivative filter");
     }
 }

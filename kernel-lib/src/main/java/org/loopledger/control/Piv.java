@@ -94,9 +94,9 @@ public final class Piv {
         double kd = kv - kP * tau;
         double slowest = Math.max(wi, kp);
         if (kd < -1e-12 * kv || !(kP > 0)) {
-            throw new IllegalArgumentException("a derivative filter with corner " + Checks.hz(1 / tau) + " (τ = " + Units.g4(tau)
+            throw new IllegalArgumentException("a derivative filter with corner " + Units.formatRadPerSAsHz(1 / tau) + " (τ = " + Units.g4(tau)
                     + " s) sits between this PIV's zeros, so the PID would need KP = " + Units.g4(kP) + " and KD = " + Units.g4(kd)
-                    + " (one negative). Choose a corner of at least " + Checks.hz(slowest));
+                    + " (one negative). Choose a corner of at least " + Units.formatRadPerSAsHz(slowest));
         }
         return Pid.withTimeConstant(kP, ki, Math.max(0, kd), tau);
     }
@@ -126,7 +126,7 @@ public final class Piv {
     public String describe(Motion motion) {
         Objects.requireNonNull(motion, "motion");
         double kv = velocity.velocityGain();
-        String integral = ", integral corner " + (velocity.hasIntegral() ? Checks.hz(velocity.integralCornerRadPerS()) : "none");
+        String integral = ", integral corner " + (velocity.hasIntegral() ? Units.formatRadPerSAsHz(velocity.integralCornerRadPerS()) : "none");
         if (motion == Motion.ROTARY) return "PIV: Kp = " + Units.g4(kp) + " 1/s, Kv = " + Units.g4(kv) + " " + motion.velocityGainUnit() + integral;
         return "PIV: Kp = " + Units.g4(kp) + " 1/s (" + Units.g4(Motion.metresPerMinutePerMm(kp)) + " (m/min)/mm), Kv = " + Units.g4(kv) + " "
                 + motion.velocityGainUnit() + " (" + Units.g4(Motion.perMmPerS(kv)) + " per mm/s)" + integral;
