@@ -1,5 +1,6 @@
 package org.loopledger.analysis;
 
+import org.loopledger.lti.Units;
 import java.util.OptionalDouble;
 
 /**
@@ -19,7 +20,7 @@ public record Bandwidth(OptionalDouble omegaRadPerS, double referenceMagnitude, 
     public boolean isPresent() { return omegaRadPerS.isPresent(); }
 
     @Override public String toString() {
-        String s = omegaRadPerS.isPresent() ? Fmt.hz(omegaRadPerS.getAsDouble()) : "none in band";
+        String s = omegaRadPerS.isPresent() ? Units.formatRadPerSAsHz(omegaRadPerS.getAsDouble()) : "none in band";
         return s + (note.isEmpty() ? "" : " (" + note + ")");
     }
 }

@@ -1,5 +1,6 @@
 package org.loopledger.analysis;
 
+import org.loopledger.lti.Units;
 import org.apache.commons.math3.complex.Complex;
 import org.loopledger.frf.Frf;
 import org.loopledger.lti.TransferFunction;
@@ -67,7 +68,7 @@ public final class ClosedLoopStability {
             return new ClosedLoopStability(z == 0 && onBoundary == 0, Method.CLOSED_LOOP_POLES, poles, z, p, c.clockwise(), notes);
         }
         notes.add("the delay makes the number of closed-loop poles infinite: decided by the Nyquist criterion on the grid up to "
-                + Fmt.hz(l.highRadPerS()));
+                + Units.formatRadPerSAsHz(l.highRadPerS()));
         notes.addAll(c.notes());
         int z = p + c.clockwise();
         return new ClosedLoopStability(z == 0 && l.openLoopPolesOnAxis() <= Math.max(0, l.netIntegrators()), Method.NYQUIST, List.of(), z, p, c.clockwise(), notes);
@@ -138,8 +139,8 @@ public final class ClosedLoopStability {
         if (!closedLoopPoles.isEmpty()) {
             b.append("  closed-loop poles:");
             for (Complex q : closedLoopPoles) {
-                b.append(' ').append(Fmt.num(q.getReal()));
-                if (q.getImaginary() != 0) b.append(q.getImaginary() < 0 ? " - " : " + ").append(Fmt.num(Math.abs(q.getImaginary()))).append('j');
+                b.append(' ').append(Units.g4(q.getReal()));
+                if (q.getImaginary() != 0) b.append(q.getImaginary() < 0 ? " - " : " + ").append(Units.g4(Math.abs(q.getImaginary()))).append('j');
                 b.append(';');
             }
             b.append('\n');

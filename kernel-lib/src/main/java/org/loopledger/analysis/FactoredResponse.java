@@ -1,5 +1,6 @@
 package org.loopledger.analysis;
 
+import org.loopledger.lti.Units;
 import org.loopledger.lti.Polynomial;
 import org.loopledger.lti.TimeBase;
 import org.loopledger.lti.TransferFunction;
@@ -50,7 +51,7 @@ final class FactoredResponse {
         double x, y;
         if (ts > 0) {
             if (omega > Math.PI / ts * (1 + 1e-12)) {
-                throw new IllegalArgumentException("frequency " + Fmt.hz(omega) + " lies above the Nyquist frequency " + Fmt.hz(Math.PI / ts)
+                throw new IllegalArgumentException("frequency " + Units.formatRadPerSAsHz(omega) + " lies above the Nyquist frequency " + Units.formatRadPerSAsHz(Math.PI / ts)
                         + " of this sampled system; restrict the grid to [0, π/T]");
             }
             x = Math.cos(omega * ts);

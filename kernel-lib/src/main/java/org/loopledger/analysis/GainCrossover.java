@@ -1,5 +1,6 @@
 package org.loopledger.analysis;
 
+import org.loopledger.lti.Units;
 import java.util.OptionalDouble;
 
 /**
@@ -20,9 +21,9 @@ public record GainCrossover(double omegaRadPerS, double phaseDeg, double phaseMa
     public double frequencyHz() { return omegaRadPerS / (2 * Math.PI); }
 
     @Override public String toString() {
-        return "gain crossover at " + Fmt.hz(omegaRadPerS) + ": phase " + Fmt.deg(phaseDeg) + ", phase margin " + Fmt.deg(phaseMarginDeg)
-                + ", delay margin " + Fmt.seconds(delayMarginS)
-                + (delayMarginSamples.isPresent() ? " (" + Fmt.num(delayMarginSamples.getAsDouble()) + " samples)" : "")
-                + ", |1+L| = " + Fmt.num(distanceToMinusOne);
+        return "gain crossover at " + Units.formatRadPerSAsHz(omegaRadPerS) + ": phase " + Units.formatDeg(phaseDeg) + ", phase margin " + Units.formatDeg(phaseMarginDeg)
+                + ", delay margin " + Units.formatSeconds(delayMarginS)
+                + (delayMarginSamples.isPresent() ? " (" + Units.g4(delayMarginSamples.getAsDouble()) + " samples)" : "")
+                + ", |1+L| = " + Units.g4(distanceToMinusOne);
     }
 }

@@ -1,5 +1,6 @@
 package org.loopledger.analysis;
 
+import org.loopledger.lti.Units;
 import org.loopledger.frf.Frf;
 import org.loopledger.lti.Polynomial;
 import org.loopledger.lti.TransferFunction;
@@ -22,7 +23,7 @@ public final class GangOfFour {
     private final Frf cs;
     private final TransferFunction[] exact; // null when not available
 
-    private GangOfFour(double[] w, double[] pr, double[] pi, double[] cr, double[] ci, TransferFunction[] exact) {
+    private GangOfFour(double[] w, double[] pr, double[] pi, double[] cr, double[] ci, TransferFunction[] exact, boolean computed) {
         int n = w.length;
         double[] sr = new double[n], si = new double[n], tr = new double[n], ti = new double[n];
         double[] psr = new double[n], psi = new double[n], csr = new double[n], csi = new double[n];
@@ -30,7 +31,7 @@ public final class GangOfFour {
             double lr = pr[i] * cr[i] - pi[i] * ci[i], li = pr[i] * ci[i] + pi[i] * cr[i];
             double dr = 1 + lr, di = li, dd = dr * dr + di * di;
             if (dd == 0) {
-                throw new IllegalArgumentException("1 + PC = 0 at " + Fmt.hz(w[i]) + ": the loop is exactly on -1 there and S is infinite");
+                throw new IllegalArgumentException("1 + PC = 0 at " + Units.formatRadPerSAsHz(w[i]) + ": the loop is exactly on -1 there and S is infinite");
             }
             // S = 1/(1+L)
             sr[i] = dr / dd;
@@ -42,10 +43,11 @@ public final class GangOfFour {
             csr[i] = cr[i] * sr[i] - ci[i] * si[i];
             csi[i] = cr[i] * si[i] + ci[i] * sr[i];
         }
-        this.s = Frf.ofParts(w, sr, si);
-        this.t = Frf.ofParts(w, tr, ti);
-        this.ps = Frf.ofParts(w, psr, psi);
-        this.cs = Frf.ofParts(w, csr, csi);
+        Frf s0 = Frf.ofParts(w, sr, si), t0 = Frf.ofParts(w, tr, ti), ps0 = Frf.ofParts(w, psr, psi), cs0 = Frf.ofParts(w, csr, csi);
+        this.s = computed ? s0.asComputedFromModel() : s0;
+        this.t = computed ? t0.asComputedFromModel() : t0;
+        this.ps = computed ? ps0.asComputedFromModel() : ps0;
+        this.cs = computed ? cs0.asComputedFromModel() : cs0;
         this.exact = exact;
     }
 
@@ -65,7 +67,7 @@ public final class GangOfFour {
         // integrator factors in closed form: accurate near DC even for high-order sampled models
         new FactoredResponse(plant).response(omegaRadPerS, pr, pi);
         new FactoredResponse(controller).response(omegaRadPerS, cr, ci);
-        return new GangOfFour(omegaRadPerS, pr, pi, cr, ci, exactForms(plant, controller));
+        return new GangOfFour(omegaRadPerS, pr, pi, cr, ci, exactForms(plant, controller), true);
     }
 
     /** From a measured plant and a measured controller on the same grid. */
@@ -74,7 +76,8 @@ public final class GangOfFour {
             throw new IllegalArgumentException("plant and controller FRFs are on different grids (" + plant + ", " + controller
                     + "); resample one onto the other's grid with resampledTo(...) first");
         }
-        return new GangOfFour(plant.omegaRadPerS(), plant.real(), plant.imag(), controller.real(), controller.imag(), null);
+        return new GangOfFour(plant.omegaRadPerS(), plant.real(), plant.imag(), controller.real(), controller.imag(), null,
+                plant.isComputedFromModel() && controller.isComputedFromModel());
     }
 
     /** From a measured plant and a model controller, evaluated on the plant's grid. */
@@ -82,7 +85,7 @@ public final class GangOfFour {
         double[] w = plant.omegaRadPerS();
         double[] cr = new double[w.length], ci = new double[w.length];
         new FactoredResponse(controller).response(w, cr, ci);
-        return new GangOfFour(w, plant.real(), plant.imag(), cr, ci, null);
+        return new GangOfFour(w, plant.real(), plant.imag(), cr, ci, null, plant.isComputedFromModel());
     }
 
     private static TransferFunction[] exactForms(TransferFunction p, TransferFunction c) {
@@ -123,11 +126,11 @@ public final class GangOfFour {
         double[] m = f.magnitude();
         int k = 0;
         for (int i = 1; i < m.length; i++) if (m[i] > m[k]) k = i;
-        return "  peak |" + name + "| = " + Fmt.num(m[k]) + " (" + Fmt.db(20 * Math.log10(m[k])) + ") at " + Fmt.hz(f.omegaAt(k)) + "\n";
+        return "  peak |" + name + "| = " + Units.g4(m[k]) + " (" + Units.formatDb(20 * Math.log10(m[k])) + ") at " + Units.formatRadPerSAsHz(f.omegaAt(k)) + "\n";
     }
 
     @Override public String toString() {
-        return ("Gang of Four on " + s.size() + " points, " + Fmt.hz(s.minOmegaRadPerS()) + " .. " + Fmt.hz(s.maxOmegaRadPerS())
+        return ("Gang of Four on " + s.size() + " points, " + Units.formatRadPerSAsHz(s.minOmegaRadPerS()) + " .. " + Units.formatRadPerSAsHz(s.maxOmegaRadPerS())
                 + (exact != null ? " (exact transfer functions available)" : "") + "\n"
                 + peak("S", s) + peak("T", t) + peak("PS", ps) + peak("CS", cs)).stripTrailing();
     }

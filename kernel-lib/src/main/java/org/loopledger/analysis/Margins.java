@@ -148,7 +148,7 @@ public final class Margins {
             if (ml.degenerateGain()) warn.add(() -> "|L| = 1 at every frequency (all-pass loop): gain crossovers are not isolated points");
             if (ml.degeneratePhase()) warn.add(() -> "L is real over whole frequency intervals: phase crossovers are not isolated points");
             if (ml.delayS() > 0 && ts.isEmpty()) {
-                warn.add(() -> "the delay adds phase crossovers without end; listed up to " + Fmt.hz(hiW) + " (ten times the highest pole, zero or crossover frequency, and at least 3 delay periods)");
+                warn.add(() -> "the delay adds phase crossovers without end; listed up to " + Units.formatRadPerSAsHz(hiW) + " (ten times the highest pole, zero or crossover frequency, and at least 3 delay periods)");
             }
             int other = l.openLoopPolesOnAxis() - Math.max(0, l.netIntegrators());
             if (other > 0) warn.add(() -> other + " open-loop pole(s) on the imaginary axis (unit circle) besides integrators: |L| is infinite there");
@@ -162,17 +162,17 @@ public final class Margins {
             double magTop = Math.exp(LoopScan.logMag(l, last));
             double magBottom = Math.exp(LoopScan.logMag(l, 0));
             if (magTop > 1) {
-                warn.add(() -> "|L| is still " + Fmt.db(Units.ratioToDb(magTop)) + " at the top of the band (" + Fmt.hz(hiW)
+                warn.add(() -> "|L| is still " + Units.formatDb(Units.ratioToDb(magTop)) + " at the top of the band (" + Units.formatRadPerSAsHz(hiW)
                         + "): a gain crossover lies above the measured band; margins there are unknown");
             }
             if (magBottom < 1) {
-                warn.add(() -> "|L| is already " + Fmt.db(Units.ratioToDb(magBottom)) + " at the bottom of the band (" + Fmt.hz(loW)
+                warn.add(() -> "|L| is already " + Units.formatDb(Units.ratioToDb(magBottom)) + " at the bottom of the band (" + Units.formatRadPerSAsHz(loW)
                         + "): a gain crossover may lie below the measured band");
             }
             if (gain.isEmpty()) warn.add(() -> "no gain crossover in the measured band: phase margin none in band");
             if (phase.isEmpty()) {
-                warn.add(() -> "no phase crossover in the measured band: the gain margin may be set above " + Fmt.hz(hiW)
-                        + " (|L| there " + Fmt.db(Units.ratioToDb(magTop)) + ")");
+                warn.add(() -> "no phase crossover in the measured band: the gain margin may be set above " + Units.formatRadPerSAsHz(hiW)
+                        + " (|L| there " + Units.formatDb(Units.ratioToDb(magTop)) + ")");
             }
             int gClusters = clusters(gain.stream().mapToDouble(GainCrossover::omegaRadPerS).toArray());
             int pClusters = clusters(phase.stream().mapToDouble(PhaseCrossover::omegaRadPerS).toArray());
@@ -180,7 +180,7 @@ public final class Margins {
                 warn.add(() -> "crossings closer than 5 % in frequency (" + gClusters + " gain, " + pClusters
                         + " phase): likely measurement noise near |L| = 1 or -180 deg; all are listed and the worst one counts");
             }
-            if (ms.atBandEdge()) warn.add(() -> "peak |S| sits at the band edge " + Fmt.hz(ms.omegaRadPerS()) + ": the true Ms may lie outside the band");
+            if (ms.atBandEdge()) warn.add(() -> "peak |S| sits at the band edge " + Units.formatRadPerSAsHz(ms.omegaRadPerS()) + ": the true Ms may lie outside the band");
             if (l instanceof MeasuredLoop m && !m.integratorsStated()) {
                 warn.add(() -> "net integrators estimated from the low-frequency slope: " + nInt + " (state them with withIntegrators if known)");
             }
@@ -189,7 +189,8 @@ public final class Margins {
         if (l.isMeasured()) {
             int size = l.size();
             OptionalDouble tsCopy = l.sampleTimeS();
-            source = () -> "measured data, " + size + " points, " + Fmt.hz(loW) + " .. " + Fmt.hz(hiW)
+            String origin = l instanceof MeasuredLoop ml && ml.computedFromModel() ? "model response on a grid, " : "measured data, ";
+            source = () -> origin + size + " points, " + Units.formatRadPerSAsHz(loW) + " .. " + Units.formatRadPerSAsHz(hiW)
                     + (tsCopy.isPresent() ? ", sampled at " + org.loopledger.lti.Units.formatHz(1 / tsCopy.getAsDouble()) : "");
         } else {
             String d = l.describe();
@@ -212,14 +213,14 @@ public final class Margins {
             ref = Math.abs(dc / (1 + dc));
         } else {
             ref = Math.sqrt(LoopScan.closedSq(LoopScan.Closed.COMPLEMENTARY, l.re(0), l.im(0)));
-            note = "reference |T| = " + Fmt.num(ref) + " taken at the lowest measured frequency";
+            note = "reference |T| = " + Units.g4(ref) + " taken at the lowest measured frequency";
         }
         if (ref == 0) return new Bandwidth(OptionalDouble.empty(), 0, "T(0) = 0: no low-frequency reference");
         double w = LoopScan.firstBelow(l, ref / Math.sqrt(2));
         if (w < 0) {
-            return new Bandwidth(OptionalDouble.empty(), ref, join(note, "|T| already below -3 dB at the lowest frequency " + Fmt.hz(l.lowRadPerS())));
+            return new Bandwidth(OptionalDouble.empty(), ref, join(note, "|T| already below -3 dB at the lowest frequency " + Units.formatRadPerSAsHz(l.lowRadPerS())));
         }
-        if (Double.isNaN(w)) return new Bandwidth(OptionalDouble.empty(), ref, join(note, "|T| stays above -3 dB up to " + Fmt.hz(l.highRadPerS())));
+        if (Double.isNaN(w)) return new Bandwidth(OptionalDouble.empty(), ref, join(note, "|T| stays above -3 dB up to " + Units.formatRadPerSAsHz(l.highRadPerS())));
         return new Bandwidth(OptionalDouble.of(w), ref, note);
     }
 
@@ -252,14 +253,17 @@ public final class Margins {
         return Optional.ofNullable(best);
     }
 
-    /** The gain crossover with the smallest phase margin (empty: no gain crossover). */
-    public Optional<GainCrossover> phaseMargin() {
+    /**
+     * The gain crossover with the smallest phase margin (empty: no gain crossover); its margin is
+     * {@link #phaseMarginDeg}. (Named for what it returns, a crossover, not a margin.)
+     */
+    public Optional<GainCrossover> phaseMarginCrossover() {
         return gainCrossovers.stream().min((a, b) -> Double.compare(a.phaseMarginDeg(), b.phaseMarginDeg()));
     }
 
     /** Smallest phase margin in degrees, empty when there is no gain crossover. */
     public OptionalDouble phaseMarginDeg() {
-        return phaseMargin().map(g -> OptionalDouble.of(g.phaseMarginDeg())).orElse(OptionalDouble.empty());
+        return phaseMarginCrossover().map(g -> OptionalDouble.of(g.phaseMarginDeg())).orElse(OptionalDouble.empty());
     }
 
     /** Upper gain margin in dB, empty when there is none. */
@@ -320,12 +324,12 @@ public final class Margins {
     @Override public String toString() {
         StringBuilder b = new StringBuilder();
         b.append("Margins (").append(source.get()).append(")\n");
-        b.append("  gain margin (increase): ").append(upperGainMargin().map(p -> Fmt.db(p.gainMarginDb()) + " (x" + Fmt.num(p.gainMarginRatio()) + ") at " + Fmt.hz(p.omegaRadPerS())).orElse(none())).append('\n');
-        b.append("  gain margin (decrease): ").append(lowerGainMargin().map(p -> Fmt.db(p.gainMarginDb()) + " (x" + Fmt.num(p.gainMarginRatio()) + ") at " + Fmt.hz(p.omegaRadPerS())).orElse(none())).append('\n');
-        b.append("  phase margin:           ").append(phaseMargin().map(g -> Fmt.deg(g.phaseMarginDeg()) + " at " + Fmt.hz(g.omegaRadPerS())).orElse(none())).append('\n');
-        b.append("  delay margin:           ").append(phaseMargin().isPresent() ? Fmt.seconds(delayMarginS().getAsDouble())
-                + (delayMarginSamples().isPresent() ? " (" + Fmt.num(delayMarginSamples().getAsDouble()) + " samples)" : "") : none()).append('\n');
-        b.append("  Ms = max|S|:            ").append(sensitivityPeak).append(", modulus margin 1/Ms = ").append(Fmt.num(modulusMargin())).append('\n');
+        b.append("  gain margin (increase): ").append(upperGainMargin().map(p -> Units.formatDb(p.gainMarginDb()) + " (x" + Units.g4(p.gainMarginRatio()) + ") at " + Units.formatRadPerSAsHz(p.omegaRadPerS())).orElse(none())).append('\n');
+        b.append("  gain margin (decrease): ").append(lowerGainMargin().map(p -> Units.formatDb(p.gainMarginDb()) + " (x" + Units.g4(p.gainMarginRatio()) + ") at " + Units.formatRadPerSAsHz(p.omegaRadPerS())).orElse(none())).append('\n');
+        b.append("  phase margin:           ").append(phaseMarginCrossover().map(g -> Units.formatDeg(g.phaseMarginDeg()) + " at " + Units.formatRadPerSAsHz(g.omegaRadPerS())).orElse(none())).append('\n');
+        b.append("  delay margin:           ").append(phaseMarginCrossover().isPresent() ? Units.formatSeconds(delayMarginS().getAsDouble())
+                + (delayMarginSamples().isPresent() ? " (" + Units.g4(delayMarginSamples().getAsDouble()) + " samples)" : "") : none()).append('\n');
+        b.append("  Ms = max|S|:            ").append(sensitivityPeak).append(", modulus margin 1/Ms = ").append(Units.g4(modulusMargin())).append('\n');
         b.append("  Mt = max|T|:            ").append(complementaryPeak).append('\n');
         b.append("  bandwidth (-3 dB of T): ").append(bandwidth).append('\n');
         b.append("  open loop:              ").append(openLoopUnstablePoles.isPresent() ? openLoopUnstablePoles.getAsInt() + " unstable pole(s)" : "unstable poles not stated")
@@ -333,23 +337,23 @@ public final class Margins {
         b.append("  gain crossovers (|L| = 1):");
         if (gainCrossovers.isEmpty()) b.append(' ').append(none()).append('\n');
         else {
-            b.append('\n').append("    ").append(Fmt.pad("frequency", 14)).append(Fmt.pad("phase", 14)).append(Fmt.pad("PM", 14))
-                    .append(Fmt.pad("delay margin", 16)).append("|1+L|\n");
+            b.append('\n').append("    ").append(Units.padRight("frequency", 14)).append(Units.padRight("phase", 14)).append(Units.padRight("PM", 14))
+                    .append(Units.padRight("delay margin", 16)).append("|1+L|\n");
             for (GainCrossover g : gainCrossovers) {
-                b.append("    ").append(Fmt.pad(Fmt.hz(g.omegaRadPerS()), 14)).append(Fmt.pad(Fmt.deg(g.phaseDeg()), 14))
-                        .append(Fmt.pad(Fmt.deg(g.phaseMarginDeg()), 14)).append(Fmt.pad(Fmt.seconds(g.delayMarginS()), 16))
-                        .append(Fmt.num(g.distanceToMinusOne())).append('\n');
+                b.append("    ").append(Units.padRight(Units.formatRadPerSAsHz(g.omegaRadPerS()), 14)).append(Units.padRight(Units.formatDeg(g.phaseDeg()), 14))
+                        .append(Units.padRight(Units.formatDeg(g.phaseMarginDeg()), 14)).append(Units.padRight(Units.formatSeconds(g.delayMarginS()), 16))
+                        .append(Units.g4(g.distanceToMinusOne())).append('\n');
             }
         }
         b.append("  phase crossovers (phase = -180 deg + k 360 deg):");
         if (phaseCrossovers.isEmpty()) b.append(' ').append(none()).append('\n');
         else {
-            b.append('\n').append("    ").append(Fmt.pad("frequency", 14)).append(Fmt.pad("phase", 14)).append(Fmt.pad("|L|", 12))
-                    .append(Fmt.pad("GM", 24)).append("|1+L|\n");
+            b.append('\n').append("    ").append(Units.padRight("frequency", 14)).append(Units.padRight("phase", 14)).append(Units.padRight("|L|", 12))
+                    .append(Units.padRight("GM", 24)).append("|1+L|\n");
             for (PhaseCrossover p : phaseCrossovers) {
-                b.append("    ").append(Fmt.pad(Fmt.hz(p.omegaRadPerS()), 14)).append(Fmt.pad(Fmt.deg(p.phaseDeg()), 14))
-                        .append(Fmt.pad(Fmt.num(p.magnitude()), 12)).append(Fmt.pad(Fmt.db(p.gainMarginDb()) + " (x" + Fmt.num(p.gainMarginRatio()) + ")", 24))
-                        .append(Fmt.num(p.distanceToMinusOne())).append('\n');
+                b.append("    ").append(Units.padRight(Units.formatRadPerSAsHz(p.omegaRadPerS()), 14)).append(Units.padRight(Units.formatDeg(p.phaseDeg()), 14))
+                        .append(Units.padRight(Units.g4(p.magnitude()), 12)).append(Units.padRight(Units.formatDb(p.gainMarginDb()) + " (x" + Units.g4(p.gainMarginRatio()) + ")", 24))
+                        .append(Units.g4(p.distanceToMinusOne())).append('\n');
             }
         }
         for (String w : warnings()) b.append("  note: ").append(w).append('\n');

@@ -31,7 +31,11 @@ public final class MeasuredLoop implements LoopResponse {
     private final int unstable;         // -1: not stated
     private final double anchorRad;     // NaN: default anchor
 
-    private MeasuredLoop(double[] w, double[] re, double[] im, double ts, int integrators, boolean stated, int unstable, double anchorRad) {
+    private final boolean computed;     // the Frf was computed from models, not measured
+
+    private MeasuredLoop(double[] w, double[] re, double[] im, double ts, int integrators, boolean stated, int unstable, double anchorRad,
+            boolean computed) {
+        this.computed = computed;
         this.w = w;
         this.re = re;
         this.im = im;
@@ -69,7 +73,8 @@ public final class MeasuredLoop implements LoopResponse {
 
     /** A measured continuous-time loop gain. */
     public static MeasuredLoop of(Frf loopGain) {
-        return ofArrays(loopGain.omegaRadPerS(), loopGain.real(), loopGain.imag());
+        MeasuredLoop m = ofArrays(loopGain.omegaRadPerS(), loopGain.real(), loopGain.imag());
+        return loopGain.isComputedFromModel() ? new MeasuredLoop(m.w, m.re, m.im, 0, 0, false, -1, Double.NaN, true) : m;
     }
 
     /**
@@ -87,7 +92,7 @@ public final class MeasuredLoop implements LoopResponse {
                     + Units.g4(sampleTimeS) + " s; a sampled loop has no response there; restrict the FRF to the band below Nyquist");
         }
         MeasuredLoop m = of(loopGain);
-        return new MeasuredLoop(m.w, m.re, m.im, sampleTimeS, 0, false, -1, Double.NaN);
+        return new MeasuredLoop(m.w, m.re, m.im, sampleTimeS, 0, false, -1, Double.NaN, m.computed);
     }
 
     /**
@@ -96,13 +101,13 @@ public final class MeasuredLoop implements LoopResponse {
      */
     public static MeasuredLoop ofArrays(double[] omegaRadPerS, double[] re, double[] im) {
         validate(omegaRadPerS, re, im);
-        return new MeasuredLoop(omegaRadPerS.clone(), re.clone(), im.clone(), 0, 0, false, -1, Double.NaN);
+        return new MeasuredLoop(omegaRadPerS.clone(), re.clone(), im.clone(), 0, 0, false, -1, Double.NaN, false);
     }
 
     /** Validated but not copied: only for callers that do not let the loop escape while the arrays may change. */
     static MeasuredLoop validatedView(double[] omegaRadPerS, double[] re, double[] im) {
         validate(omegaRadPerS, re, im);
-        return new MeasuredLoop(omegaRadPerS, re, im, 0, 0, false, -1, Double.NaN);
+        return new MeasuredLoop(omegaRadPerS, re, im, 0, 0, false, -1, Double.NaN, false);
     }
 
     private static void validate(double[] omegaRadPerS, double[] re, double[] im) {
@@ -127,19 +132,19 @@ public final class MeasuredLoop implements LoopResponse {
     /** Same data with a stated number of open-loop unstable poles (needed for the Nyquist criterion). */
     public MeasuredLoop withOpenLoopUnstablePoles(int count) {
         if (count < 0) throw new IllegalArgumentException("the number of unstable open-loop poles cannot be negative, got " + count);
-        return new MeasuredLoop(w, re, im, ts, integrators, integratorsStated, count, anchorRad);
+        return new MeasuredLoop(w, re, im, ts, integrators, integratorsStated, count, anchorRad, computed);
     }
 
     /** Same data with a stated number of net integrators (instead of the slope estimate). */
     public MeasuredLoop withIntegrators(int count) {
         if (count < -3 || count > 4) throw new IllegalArgumentException("net integrator count " + count + " is implausible; give a number in -3..4");
-        return new MeasuredLoop(w, re, im, ts, count, true, unstable, anchorRad);
+        return new MeasuredLoop(w, re, im, ts, count, true, unstable, anchorRad, computed);
     }
 
     /** Same data with the phase branch fixed: the lowest point's phase is the one nearest {@code anchorDeg}. */
     public MeasuredLoop withPhaseAnchorDeg(double anchorDeg) {
         if (!Double.isFinite(anchorDeg)) throw new IllegalArgumentException("phase anchor must be finite, got " + anchorDeg);
-        return new MeasuredLoop(w, re, im, ts, integrators, integratorsStated, unstable, Math.toRadians(anchorDeg));
+        return new MeasuredLoop(w, re, im, ts, integrators, integratorsStated, unstable, Math.toRadians(anchorDeg), computed);
     }
 
     private int estimateIntegrators() {
@@ -191,8 +196,11 @@ public final class MeasuredLoop implements LoopResponse {
 
     @Override public int openLoopPolesOnAxis() { return Math.max(0, integrators); }
 
+    /** True when the data were computed from models (an {@link Frf#isComputedFromModel} response), false when measured. */
+    public boolean computedFromModel() { return computed; }
+
     @Override public String describe() {
-        return "measured data, " + w.length + " points, " + Units.formatHz(Units.radPerSToHz(w[0])) + " .. "
+        return (computed ? "model response on a grid, " : "measured data, ") + w.length + " points, " + Units.formatHz(Units.radPerSToHz(w[0])) + " .. "
                 + Units.formatHz(Units.radPerSToHz(w[w.length - 1])) + (ts > 0 ? ", sampled at " + Units.formatHz(1 / ts) : "");
     }
 

@@ -1,5 +1,6 @@
 package org.loopledger.analysis;
 
+import org.loopledger.lti.Units;
 import java.util.ArrayList;
 import java.util.List;
 
@@ -69,19 +70,19 @@ final class NyquistCount {
         }
         if (Math.abs(theta0 - theta0raw) > Math.PI / 4) {
             notes.add("at the lowest frequency L is far from its low-frequency asymptote (arg(1+L) off by "
-                    + Fmt.deg(Math.toDegrees(theta0raw - theta0)) + "): the count assumes nothing happens below the band");
+                    + Units.formatDeg(Math.toDegrees(theta0raw - theta0)) + "): the count assumes nothing happens below the band");
         }
         double thetaEnd;
         if (Double.isNaN(highEndArg)) thetaEnd = Math.PI * Math.round(theta / Math.PI);
         else thetaEnd = highEndArg + 2 * Math.PI * Math.round((theta - highEndArg) / (2 * Math.PI));
         if (Math.abs(thetaEnd - theta) > Math.PI / 4) {
-            notes.add("at the highest frequency 1 + L is far from its limit (arg off by " + Fmt.deg(Math.toDegrees(theta - thetaEnd))
+            notes.add("at the highest frequency 1 + L is far from its limit (arg off by " + Units.formatDeg(Math.toDegrees(theta - thetaEnd))
                     + "): the count assumes |L| stays below 1 above the band");
         }
         double total = 2 * (thetaEnd - theta0) - Math.max(0, integrators) * Math.PI;
         double raw = -total / (2 * Math.PI);
         long r = Math.round(raw);
-        if (Math.abs(raw - r) > 1e-6) notes.add("winding number " + Fmt.num(raw) + " is not an integer: the grid is too coarse or the band incomplete");
+        if (Math.abs(raw - r) > 1e-6) notes.add("winding number " + Units.g4(raw) + " is not an integer: the grid is too coarse or the band incomplete");
         if (coarse) notes.add("L passes -1 closer than the grid resolves: the encirclement count may be off");
         return new Count((int) r, raw, notes);
     }

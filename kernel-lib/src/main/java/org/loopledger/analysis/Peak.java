@@ -16,6 +16,6 @@ public record Peak(double magnitude, double omegaRadPerS, boolean atBandEdge) {
     public double frequencyHz() { return omegaRadPerS / (2 * Math.PI); }
 
     @Override public String toString() {
-        return Fmt.num(magnitude) + " (" + Fmt.db(magnitudeDb()) + ") at " + Fmt.hz(omegaRadPerS) + (atBandEdge ? " (band edge)" : "");
+        return Units.g4(magnitude) + " (" + Units.formatDb(magnitudeDb()) + ") at " + Units.formatRadPerSAsHz(omegaRadPerS) + (atBandEdge ? " (band edge)" : "");
     }
 }

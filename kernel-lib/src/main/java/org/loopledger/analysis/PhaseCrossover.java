@@ -24,8 +24,8 @@ public record PhaseCrossover(double omegaRadPerS, double magnitude, double phase
     public boolean limitsIncrease() { return gainMarginRatio > 1; }
 
     @Override public String toString() {
-        return "phase crossover at " + Fmt.hz(omegaRadPerS) + ": |L| = " + Fmt.num(magnitude) + ", phase " + Fmt.deg(phaseDeg)
-                + ", gain margin " + Fmt.db(gainMarginDb()) + " (x" + Fmt.num(gainMarginRatio) + ")"
-                + ", |1+L| = " + Fmt.num(distanceToMinusOne);
+        return "phase crossover at " + Units.formatRadPerSAsHz(omegaRadPerS) + ": |L| = " + Units.g4(magnitude) + ", phase " + Units.formatDeg(phaseDeg)
+                + ", gain margin " + Units.formatDb(gainMarginDb()) + " (x" + Units.g4(gainMarginRatio) + ")"
+                + ", |1+L| = " + Units.g4(distanceToMinusOne);
     }
 }

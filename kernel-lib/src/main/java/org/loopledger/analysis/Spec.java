@@ -43,6 +43,46 @@ public final class Spec {
 
     public static Builder builder() { return new Builder(); }
 
+    /** A builder holding this spec's requirements, to add the ones not yet set (each may still be set once). */
+    public Builder toBuilder() {
+        Builder b = new Builder();
+        b.minBandwidthRadPerS = minBandwidthRadPerS;
+        b.minPhaseMarginDeg = minPhaseMarginDeg;
+        b.minGainMarginDb = minGainMarginDb;
+        b.minLowerGainMarginDb = minLowerGainMarginDb;
+        b.maxSensitivityPeak = maxSensitivityPeak;
+        b.maxComplementaryPeak = maxComplementaryPeak;
+        b.minDelayMarginS = minDelayMarginS;
+        b.requireStable = requireStable;
+        return b;
+    }
+
+    private static OptionalDouble opt(double v) { return Double.isNaN(v) ? OptionalDouble.empty() : OptionalDouble.of(v); }
+
+    /** Minimum closed-loop bandwidth in Hz, if required. */
+    public OptionalDouble minBandwidthHz() { return Double.isNaN(minBandwidthRadPerS) ? OptionalDouble.empty() : OptionalDouble.of(Units.radPerSToHz(minBandwidthRadPerS)); }
+
+    /** Minimum phase margin in degrees, if required. */
+    public OptionalDouble minPhaseMarginDeg() { return opt(minPhaseMarginDeg); }
+
+    /** Minimum gain margin (increase) in dB, if required. */
+    public OptionalDouble minGainMarginDb() { return opt(minGainMarginDb); }
+
+    /** Minimum gain margin for a decrease in dB (a positive number), if required. */
+    public OptionalDouble minLowerGainMarginDb() { return opt(minLowerGainMarginDb); }
+
+    /** Maximum sensitivity peak Ms as a ratio, if required. */
+    public OptionalDouble maxSensitivityPeak() { return opt(maxSensitivityPeak); }
+
+    /** Maximum complementary sensitivity peak Mt as a ratio, if required. */
+    public OptionalDouble maxComplementaryPeak() { return opt(maxComplementaryPeak); }
+
+    /** Minimum delay margin in seconds, if required. */
+    public OptionalDouble minDelayMarginS() { return opt(minDelayMarginS); }
+
+    /** Whether closed-loop stability is required. */
+    public boolean requiresStability() { return requireStable; }
+
     /** Builder; each limit may be set once. NaN marks "not required". */
     public static final class Builder {
         private double minBandwidthRadPerS = Double.NaN;
@@ -75,12 +115,20 @@ public final class Spec {
             return this;
         }
 
-        /** Phase margin at every gain crossover at least {@code deg} (0 &lt; deg &lt; 180). */
+        /**
+         * Phase margin at every gain crossover at least {@code deg} (0 &lt; deg &lt; 90).
+         *
+         * <p>One rule for checks and for the tuner ({@code tune.TuningSpec} holds a Spec). 90° is excluded: a
+         * loop with an integrator and any lag (a servo velocity loop with PI action, a position loop around it,
+         * sampling delay) has arg L below −90° at its crossover, so a limit of 90° or more could never be met and
+         * only hides a typo; common practice puts phase-margin limits at 30 to 60°.
+         */
         public Builder minPhaseMarginDeg(double deg) {
             once(minPhaseMarginDeg, "minimum phase margin");
-            if (!(finite(deg, "minimum phase margin") > 0 && deg < 180)) {
-                throw new IllegalArgumentException("minimum phase margin must lie in (0, 180) deg, got " + deg
-                        + " deg; a margin of 0 or less allows an unstable loop (typical targets: 30 to 60 deg)");
+            if (!(finite(deg, "minimum phase margin") > 0 && deg < 90)) {
+                throw new IllegalArgumentException("minimum phase margin must lie in (0, 90) deg, got " + deg
+                        + " deg; a margin of 0 or less allows an unstable loop, 90 or more no loop with an integrator"
+                        + " and any lag can meet (typical limits: 30 to 60 deg)");
             }
             minPhaseMarginDeg = deg;
             return this;
@@ -174,34 +222,34 @@ public final class Spec {
             Bandwidth bw = m.bandwidth();
             if (bw.isPresent()) {
                 double w = bw.omegaRadPerS().getAsDouble();
-                rows.add(row("bandwidth (-3 dB of T)", ">= " + Fmt.hz(minBandwidthRadPerS), Fmt.hz(w), w >= minBandwidthRadPerS,
+                rows.add(row("bandwidth (-3 dB of T)", ">= " + Units.formatRadPerSAsHz(minBandwidthRadPerS), Units.formatRadPerSAsHz(w), w >= minBandwidthRadPerS,
                         Units.radPerSToHz(w), Units.radPerSToHz(minBandwidthRadPerS), OptionalDouble.of(Units.radPerSToHz(w))));
             } else {
-                rows.add(row("bandwidth (-3 dB of T)", ">= " + Fmt.hz(minBandwidthRadPerS), bw.toString(), false, Double.NaN,
+                rows.add(row("bandwidth (-3 dB of T)", ">= " + Units.formatRadPerSAsHz(minBandwidthRadPerS), bw.toString(), false, Double.NaN,
                         Units.radPerSToHz(minBandwidthRadPerS), OptionalDouble.empty()));
             }
         }
         if (!Double.isNaN(minPhaseMarginDeg)) {
-            var g = m.phaseMargin();
+            var g = m.phaseMarginCrossover();
             if (g.isPresent()) {
                 double pm = g.get().phaseMarginDeg();
-                rows.add(row("phase margin", ">= " + Fmt.deg(minPhaseMarginDeg), Fmt.deg(pm), pm >= minPhaseMarginDeg, pm, minPhaseMarginDeg,
+                rows.add(row("phase margin", ">= " + Units.formatDeg(minPhaseMarginDeg), Units.formatDeg(pm), pm >= minPhaseMarginDeg, pm, minPhaseMarginDeg,
                         OptionalDouble.of(g.get().frequencyHz())));
             } else {
-                rows.add(row("phase margin", ">= " + Fmt.deg(minPhaseMarginDeg), none, false, Double.NaN, minPhaseMarginDeg, OptionalDouble.empty()));
+                rows.add(row("phase margin", ">= " + Units.formatDeg(minPhaseMarginDeg), none, false, Double.NaN, minPhaseMarginDeg, OptionalDouble.empty()));
             }
         }
         if (!Double.isNaN(minGainMarginDb)) {
             var p = m.upperGainMargin();
             if (p.isPresent()) {
                 double gm = p.get().gainMarginDb();
-                rows.add(row("gain margin (increase)", ">= " + Fmt.db(minGainMarginDb), Fmt.db(gm), gm >= minGainMarginDb, gm, minGainMarginDb,
+                rows.add(row("gain margin (increase)", ">= " + Units.formatDb(minGainMarginDb), Units.formatDb(gm), gm >= minGainMarginDb, gm, minGainMarginDb,
                         OptionalDouble.of(p.get().frequencyHz())));
             } else if (!m.measured()) {
-                rows.add(row("gain margin (increase)", ">= " + Fmt.db(minGainMarginDb), "unlimited (no phase crossover with |L| < 1)", true,
+                rows.add(row("gain margin (increase)", ">= " + Units.formatDb(minGainMarginDb), "unlimited (no phase crossover with |L| < 1)", true,
                         Double.POSITIVE_INFINITY, minGainMarginDb, OptionalDouble.empty()));
             } else {
-                rows.add(row("gain margin (increase)", ">= " + Fmt.db(minGainMarginDb), "none in band (unknown above the band)", false,
+                rows.add(row("gain margin (increase)", ">= " + Units.formatDb(minGainMarginDb), "none in band (unknown above the band)", false,
                         Double.NaN, minGainMarginDb, OptionalDouble.empty()));
             }
         }
@@ -209,33 +257,33 @@ public final class Spec {
             var p = m.lowerGainMargin();
             if (p.isPresent()) {
                 double gm = -p.get().gainMarginDb();
-                rows.add(row("gain margin (decrease)", ">= " + Fmt.db(minLowerGainMarginDb), Fmt.db(gm), gm >= minLowerGainMarginDb, gm,
+                rows.add(row("gain margin (decrease)", ">= " + Units.formatDb(minLowerGainMarginDb), Units.formatDb(gm), gm >= minLowerGainMarginDb, gm,
                         minLowerGainMarginDb, OptionalDouble.of(p.get().frequencyHz())));
             } else {
-                rows.add(row("gain margin (decrease)", ">= " + Fmt.db(minLowerGainMarginDb),
+                rows.add(row("gain margin (decrease)", ">= " + Units.formatDb(minLowerGainMarginDb),
                         m.measured() ? "none in band" : "unlimited (no phase crossover with |L| > 1)", !m.measured(),
                         Double.POSITIVE_INFINITY, minLowerGainMarginDb, OptionalDouble.empty()));
             }
         }
         if (!Double.isNaN(maxSensitivityPeak)) {
             Peak s = m.sensitivityPeak();
-            rows.add(row("sensitivity peak Ms", "<= " + Fmt.num(maxSensitivityPeak) + " (" + Fmt.db(Units.ratioToDb(maxSensitivityPeak)) + ")",
-                    Fmt.num(s.magnitude()) + " (" + Fmt.db(s.magnitudeDb()) + ")", s.magnitude() <= maxSensitivityPeak, s.magnitude(),
+            rows.add(row("sensitivity peak Ms", "<= " + Units.g4(maxSensitivityPeak) + " (" + Units.formatDb(Units.ratioToDb(maxSensitivityPeak)) + ")",
+                    Units.g4(s.magnitude()) + " (" + Units.formatDb(s.magnitudeDb()) + ")", s.magnitude() <= maxSensitivityPeak, s.magnitude(),
                     maxSensitivityPeak, OptionalDouble.of(s.frequencyHz())));
         }
         if (!Double.isNaN(maxComplementaryPeak)) {
             Peak t = m.complementaryPeak();
-            rows.add(row("peak |T| (Mt)", "<= " + Fmt.db(Units.ratioToDb(maxComplementaryPeak)), Fmt.db(t.magnitudeDb()),
+            rows.add(row("peak |T| (Mt)", "<= " + Units.formatDb(Units.ratioToDb(maxComplementaryPeak)), Units.formatDb(t.magnitudeDb()),
                     t.magnitude() <= maxComplementaryPeak, t.magnitude(), maxComplementaryPeak, OptionalDouble.of(t.frequencyHz())));
         }
         if (!Double.isNaN(minDelayMarginS)) {
             var g = m.gainCrossovers().stream().min((a, b) -> Double.compare(a.delayMarginS(), b.delayMarginS()));
             if (g.isPresent()) {
                 double dm = g.get().delayMarginS();
-                rows.add(row("delay margin", ">= " + Fmt.seconds(minDelayMarginS), Fmt.seconds(dm), dm >= minDelayMarginS, dm, minDelayMarginS,
+                rows.add(row("delay margin", ">= " + Units.formatSeconds(minDelayMarginS), Units.formatSeconds(dm), dm >= minDelayMarginS, dm, minDelayMarginS,
                         OptionalDouble.of(g.get().frequencyHz())));
             } else {
-                rows.add(row("delay margin", ">= " + Fmt.seconds(minDelayMarginS), none, false, Double.NaN, minDelayMarginS, OptionalDouble.empty()));
+                rows.add(row("delay margin", ">= " + Units.formatSeconds(minDelayMarginS), none, false, Double.NaN, minDelayMarginS, OptionalDouble.empty()));
             }
         }
         if (requireStable) {
@@ -257,13 +305,13 @@ public final class Spec {
 
     @Override public String toString() {
         List<String> r = new ArrayList<>();
-        if (!Double.isNaN(minBandwidthRadPerS)) r.add("bandwidth >= " + Fmt.hz(minBandwidthRadPerS));
-        if (!Double.isNaN(minPhaseMarginDeg)) r.add("PM >= " + Fmt.deg(minPhaseMarginDeg));
-        if (!Double.isNaN(minGainMarginDb)) r.add("GM >= " + Fmt.db(minGainMarginDb));
-        if (!Double.isNaN(minLowerGainMarginDb)) r.add("lower GM >= " + Fmt.db(minLowerGainMarginDb));
-        if (!Double.isNaN(maxSensitivityPeak)) r.add("Ms <= " + Fmt.num(maxSensitivityPeak));
-        if (!Double.isNaN(maxComplementaryPeak)) r.add("Mt <= " + Fmt.db(Units.ratioToDb(maxComplementaryPeak)));
-        if (!Double.isNaN(minDelayMarginS)) r.add("delay margin >= " + Fmt.seconds(minDelayMarginS));
+        if (!Double.isNaN(minBandwidthRadPerS)) r.add("bandwidth >= " + Units.formatRadPerSAsHz(minBandwidthRadPerS));
+        if (!Double.isNaN(minPhaseMarginDeg)) r.add("PM >= " + Units.formatDeg(minPhaseMarginDeg));
+        if (!Double.isNaN(minGainMarginDb)) r.add("GM >= " + Units.formatDb(minGainMarginDb));
+        if (!Double.isNaN(minLowerGainMarginDb)) r.add("lower GM >= " + Units.formatDb(minLowerGainMarginDb));
+        if (!Double.isNaN(maxSensitivityPeak)) r.add("Ms <= " + Units.g4(maxSensitivityPeak));
+        if (!Double.isNaN(maxComplementaryPeak)) r.add("Mt <= " + Units.formatDb(Units.ratioToDb(maxComplementaryPeak)));
+        if (!Double.isNaN(minDelayMarginS)) r.add("delay margin >= " + Units.formatSeconds(minDelayMarginS));
         if (requireStable) r.add("stable");
         return "Spec[" + String.join(", ", r) + "]";
     }

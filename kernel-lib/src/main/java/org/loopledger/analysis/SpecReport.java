@@ -1,5 +1,6 @@
 package org.loopledger.analysis;
 
+import org.loopledger.lti.Units;
 import java.util.List;
 import java.util.OptionalDouble;
 
@@ -75,7 +76,7 @@ public record SpecReport(List<Row> rows, List<String> warnings, String title) {
 
     private static void line(StringBuilder b, String[] c, int[] w) {
         for (int i = 0; i < c.length; i++) {
-            b.append(i + 1 < c.length ? Fmt.pad(c[i], w[i] + 2) : c[i]);
+            b.append(i + 1 < c.length ? Units.padRight(c[i], w[i] + 2) : c[i]);
         }
         b.append('\n');
     }

@@ -45,7 +45,7 @@ public record Biquad(double n2, double n1, double n0, double d2, double d1, doub
 
     @Override public void requireBelowNyquist(double sampleRateHz) { Checks.belowNyquist(prewarpRadPerS, sampleRateHz, "biquad prewarp frequency"); }
 
-    @Override public String describe() { return "biquad " + continuous() + ", prewarped at " + Checks.hz(prewarpRadPerS); }
+    @Override public String describe() { return "biquad " + continuous() + ", prewarped at " + Units.formatRadPerSAsHz(prewarpRadPerS); }
 
     @Override public String toString() { return describe(); }
 }

@@ -37,6 +37,4 @@ final class Checks {
                     + " of a drive sampling at " + Units.formatHz(sampleRateHz) + "; lower it or raise the sample rate");
         }
     }
-
-    static String hz(double omegaRadPerS) { return Units.formatHz(Units.radPerSToHz(omegaRadPerS)); }
 }

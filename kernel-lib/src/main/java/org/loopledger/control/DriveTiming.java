@@ -179,7 +179,7 @@ public final class DriveTiming {
     public Frf factor(double[] omegaRadPerS) {
         double[] re = ComplexArrays.ones(omegaRadPerS.length), im = new double[omegaRadPerS.length];
         multiplyFactor(omegaRadPerS, re, im);
-        return Frf.ofParts(omegaRadPerS, re, im);
+        return Frf.ofParts(omegaRadPerS, re, im).asComputedFromModel();
     }
 
     @Override public boolean equals(Object o) {
@@ -190,7 +190,7 @@ public final class DriveTiming {
     @Override public int hashCode() { return Objects.hash(sampled, sampled ? sampleRateHz : 0, delaySamples, zoh, currentLoopRadPerS); }
 
     @Override public String toString() {
-        String cl = Double.isInfinite(currentLoopRadPerS) ? "ideal current loop" : "current loop " + Checks.hz(currentLoopRadPerS);
+        String cl = Double.isInfinite(currentLoopRadPerS) ? "ideal current loop" : "current loop " + Units.formatRadPerSAsHz(currentLoopRadPerS);
         if (!sampled) return "continuous drive (no sampling, no delay), " + cl;
         return "drive at " + Units.formatHz(sampleRateHz) + ", computation delay " + Units.g4(delaySamples) + " samples ("
                 + Units.g4(computationDelayS() * 1e6) + " µs), " + (zoh ? "zero-order hold" : "no hold") + ", " + cl;

@@ -15,7 +15,7 @@ public record LeadLag(double zeroRadPerS, double poleRadPerS) implements Filter 
         Checks.positive(zeroRadPerS, "lead/lag zero corner", "rad/s");
         Checks.positive(poleRadPerS, "lead/lag pole corner", "rad/s");
         if (zeroRadPerS == poleRadPerS) {
-            throw new IllegalArgumentException("lead/lag with equal zero and pole corners (" + Checks.hz(zeroRadPerS)
+            throw new IllegalArgumentException("lead/lag with equal zero and pole corners (" + Units.formatRadPerSAsHz(zeroRadPerS)
                     + ") does nothing; leave it out or separate the corners");
         }
     }
@@ -64,8 +64,8 @@ public record LeadLag(double zeroRadPerS, double poleRadPerS) implements Filter 
     }
 
     @Override public String describe() {
-        return (isLead() ? "lead " : "lag ") + Units.g4(extremePhaseDeg()) + " deg at " + Checks.hz(centreRadPerS()) + " (zero "
-                + Checks.hz(zeroRadPerS) + ", pole " + Checks.hz(poleRadPerS) + ")";
+        return (isLead() ? "lead " : "lag ") + Units.g4(extremePhaseDeg()) + " deg at " + Units.formatRadPerSAsHz(centreRadPerS()) + " (zero "
+                + Units.formatRadPerSAsHz(zeroRadPerS) + ", pole " + Units.formatRadPerSAsHz(poleRadPerS) + ")";
     }
 
     @Override public String toString() { return describe(); }

@@ -25,7 +25,7 @@ public record LowPass1(double cornerRadPerS) implements Filter {
 
     @Override public void requireBelowNyquist(double sampleRateHz) { Checks.belowNyquist(cornerRadPerS, sampleRateHz, "first-order low-pass corner"); }
 
-    @Override public String describe() { return "1st-order low-pass " + Checks.hz(cornerRadPerS); }
+    @Override public String describe() { return "1st-order low-pass " + Units.formatRadPerSAsHz(cornerRadPerS); }
 
     @Override public String toString() { return describe(); }
 }

@@ -37,7 +37,7 @@ public record LowPass2(double naturalRadPerS, double damping) implements Filter 
 
     @Override public void requireBelowNyquist(double sampleRateHz) { Checks.belowNyquist(naturalRadPerS, sampleRateHz, "second-order low-pass frequency"); }
 
-    @Override public String describe() { return "2nd-order low-pass " + Checks.hz(naturalRadPerS) + ", damping " + Units.g4(damping); }
+    @Override public String describe() { return "2nd-order low-pass " + Units.formatRadPerSAsHz(naturalRadPerS) + ", damping " + Units.g4(damping); }
 
     @Override public String toString() { return describe(); }
 }

@@ -27,16 +27,46 @@ import org.loopledger.lti.Units;
  * Δ<sub>d</sub> = (2/T)·atan(Δω·sin(ω<sub>0</sub>T)/(2ω<sub>0</sub>)), slightly narrower than Δω; equivalently,
  * scipy.signal.iirnotch(f<sub>0</sub>, Q<sub>d</sub>, fs) (which fixes the digital width) equals this notch (full
  * depth) with Q = sin(ω<sub>0</sub>T)/(2·tan(ω<sub>0</sub>T/(2Q<sub>d</sub>))) ({@link #ofDigitalQ}).
+ *
+ * <p>Made only through unit-named factories ({@link #ofHz}, {@link #ofRadPerS}, ...): a public constructor
+ * {@code new Notch(620, 20, 250)} read as Hz but took rad/s. Hence a final class, not a record (a record's
+ * constructor is as public as the record); equality is still by value.
  */
-public record Notch(double centreRadPerS, double depthDb, double widthRadPerS) implements Filter {
-    public Notch {
+public final class Notch implements Filter {
+    private final double centreRadPerS;
+    private final double depthDb;
+    private final double widthRadPerS;
+
+    private Notch(double centreRadPerS, double depthDb, double widthRadPerS) {
         Checks.positive(centreRadPerS, "notch centre", "rad/s");
         if (!(depthDb > 0)) {
             throw new IllegalArgumentException("notch depth must be a positive number of dB (attenuation at the centre, e.g. 20), got " + depthDb
                     + " dB; use Double.POSITIVE_INFINITY for a full notch");
         }
         Checks.positive(widthRadPerS, "notch width", "rad/s");
+        this.centreRadPerS = centreRadPerS;
+        this.depthDb = depthDb;
+        this.widthRadPerS = widthRadPerS;
     }
+
+    /** Centre and width in rad/s, depth in dB (positive; infinite for a full notch). */
+    public static Notch ofRadPerS(double centreRadPerS, double depthDb, double widthRadPerS) {
+        return new Notch(centreRadPerS, depthDb, widthRadPerS);
+    }
+
+    public double centreRadPerS() { return centreRadPerS; }
+
+    /** Attenuation at the centre in dB (positive; infinite for a full notch). */
+    public double depthDb() { return depthDb; }
+
+    public double widthRadPerS() { return widthRadPerS; }
+
+    @Override public boolean equals(Object o) {
+        return o instanceof Notch n && Double.compare(centreRadPerS, n.centreRadPerS) == 0 && Double.compare(depthDb, n.depthDb) == 0
+                && Double.compare(widthRadPerS, n.widthRadPerS) == 0;
+    }
+
+    @Override public int hashCode() { return java.util.Objects.hash(centreRadPerS, depthDb, widthRadPerS); }
 
     /** Centre and width in Hz, depth in dB (positive; infinite for a full notch). */
     public static Notch ofHz(double centreHz, double depthDb, double widthHz) {
@@ -89,8 +119,8 @@ public record Notch(double centreRadPerS, double depthDb, double widthRadPerS) i
     @Override public void requireBelowNyquist(double sampleRateHz) { Checks.belowNyquist(centreRadPerS, sampleRateHz, "notch centre"); }
 
     @Override public String describe() {
-        return "notch " + Checks.hz(centreRadPerS) + ", depth " + (isFullDepth() ? "full" : Units.g4(depthDb) + " dB") + ", width "
-                + Checks.hz(widthRadPerS) + " (Q " + Units.g4(q()) + ")";
+        return "notch " + Units.formatRadPerSAsHz(centreRadPerS) + ", depth " + (isFullDepth() ? "full" : Units.g4(depthDb) + " dB") + ", width "
+                + Units.formatRadPerSAsHz(widthRadPerS) + " (Q " + Units.g4(q()) + ")";
     }
 
     @Override public String toString() { return describe(); }

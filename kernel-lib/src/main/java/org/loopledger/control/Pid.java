@@ -4,6 +4,8 @@ import org.loopledger.lti.Motion;
 import org.loopledger.lti.TransferFunction;
 import org.loopledger.lti.Units;
 
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Objects;
 import java.util.Optional;
 
@@ -68,7 +70,9 @@ public final class Pid {
 
     /**
      * The exact PIV form: the roots of N(s) = a s² + b s + c are -K<sub>p</sub> and -ω<sub>i</sub> (which is which:
-     * {@code assignment}), K<sub>v</sub> = a, and a derivative filter becomes a first-order low-pass at 1/τ.
+     * {@code assignment}), K<sub>v</sub> = a, and a derivative filter becomes a first-order low-pass at 1/τ. The zeros
+     * are interchangeable, so the result warns with the other assignment; when the drive's K<sub>p</sub> is roughly
+     * known, {@link #toPivNearestPositionGain} picks the right one.
      *
      * @throws IllegalArgumentException when the roots are complex (named in the message), or when N is
      *         only first order (K<sub>D</sub> = 0 and τ = 0: no velocity gain)
@@ -86,28 +90,84 @@ public final class Pid {
             double re = -b / (2 * a), im = Math.sqrt(-disc) / (2 * a);
             throw new IllegalArgumentException("this PID's numerator " + Units.g4(a) + " s^2 + " + Units.g4(b) + " s + " + Units.g4(c)
                     + " has complex roots " + Units.g4(re) + " ± j" + Units.g4(im) + " rad/s (natural frequency "
-                    + Checks.hz(Math.sqrt(c / a)) + ", damping " + Units.g4(b / (2 * Math.sqrt(a * c))) + "); a PIV's zeros -Kp and -ωi "
+                    + Units.formatRadPerSAsHz(Math.sqrt(c / a)) + ", damping " + Units.g4(b / (2 * Math.sqrt(a * c))) + "); a PIV's zeros -Kp and -ωi "
                     + "are real, so no PIV equals it. Raise KP or lower KI·KD until KP² ≥ 4·KI·KD (with τ: (KP + KI·τ)² ≥ 4·KI·(KP·τ + KD))");
         }
-        // Stable quadratic roots (Numerical Recipes, 3rd ed., §5.6): q = -(b + sqrt(disc))/2, roots q/a and c/q.
-        double q = -0.5 * (b + Math.sqrt(disc));
-        double fast = -q / a;             // magnitude of the root q/a (the larger one)
-        double slow = c == 0 ? 0 : -c / q; // magnitude of c/q
-        double lo = Math.min(fast, slow), hi = Math.max(fast, slow);
-        double wi, kpPos;
-        if (lo == 0) {
-            wi = 0; // KI = 0: no integral action, the remaining zero is the position gain
-            kpPos = hi;
-        } else if (assignment == ZeroAssignment.INTEGRAL_CORNER_IS_LOWER_ZERO) {
-            wi = lo;
-            kpPos = hi;
-        } else {
-            wi = hi;
-            kpPos = lo;
+        double[] z = zeros(a, b, c);
+        double lo = z[0], hi = z[1];
+        if (lo == 0) return build(a, hi, 0, List.of()); // KI = 0: no integral action, the remaining zero is the position gain
+        boolean cornerLow = assignment == ZeroAssignment.INTEGRAL_CORNER_IS_LOWER_ZERO;
+        double kpPos = cornerLow ? hi : lo, wi = cornerLow ? lo : hi;
+        return build(a, kpPos, wi, swapWarning(a, kpPos, wi, "the stated assignment " + assignment));
+    }
+
+    /**
+     * The PIV form whose position gain K<sub>p</sub> is the zero nearest {@code expectedPositionGainPerS} (nearest in
+     * ratio, |ln(zero/expected)|), for instance the drive's current K<sub>p</sub>. The two zeros of N(s) are
+     * interchangeable in the single-loop transfer function, so a plain {@link #toPiv(ZeroAssignment)} with a fixed
+     * rule would swap K<sub>p</sub> and ω<sub>i</sub> whenever the drive's corner lies on the other side of its
+     * position gain. The result warns with the other assignment, and when neither zero lies within a factor of 2 of
+     * the expectation.
+     */
+    public PidAsPiv toPivNearestPositionGain(double expectedPositionGainPerS) {
+        Checks.positive(expectedPositionGainPerS, "expected position gain Kp", "1/s");
+        double[] n = numerator();
+        double a = n[0], b = n[1], c = n[2];
+        if (a == 0 || b * b - 4 * a * c < 0) return toPiv(ZeroAssignment.INTEGRAL_CORNER_IS_LOWER_ZERO); // same errors, same words
+        double[] z = zeros(a, b, c);
+        double lo = z[0], hi = z[1];
+        if (lo == 0) return build(a, hi, 0, List.of());
+        double e = expectedPositionGainPerS;
+        boolean loIsKp = Math.abs(Math.log(lo / e)) <= Math.abs(Math.log(hi / e));
+        double kpPos = loIsKp ? lo : hi, wi = loIsKp ? hi : lo;
+        List<String> w = new ArrayList<>(swapWarning(a, kpPos, wi, "the zero nearest the expected Kp = " + Units.g4(e) + " 1/s"));
+        if (Math.abs(Math.log(kpPos / e)) > Math.log(2)) {
+            w.add("neither zero (" + Units.g4(lo) + " and " + Units.g4(hi) + " rad/s) lies within a factor of 2 of the expected Kp = "
+                    + Units.g4(e) + " 1/s: check the PID's units (per rad, per s) before using this PIV");
         }
-        Piv piv = Piv.of(kpPos, VelocityPi.ofRadPerS(a, wi));
+        return build(a, kpPos, wi, w);
+    }
+
+    /**
+     * Magnitudes of the two real roots of a s² + b s + c, ascending (0 first when c = 0). Stable quadratic roots
+     * (Numerical Recipes, 3rd ed., §5.6): q = -(b + sqrt(disc))/2, roots q/a and c/q.
+     */
+    private static double[] zeros(double a, double b, double c) {
+        double q = -0.5 * (b + Math.sqrt(Math.max(0, b * b - 4 * a * c)));
+        double fast = -q / a;
+        double slow = c == 0 ? 0 : -c / q;
+        return new double[] {Math.min(fast, slow), Math.max(fast, slow)};
+    }
+
+    private PidAsPiv build(double kv, double kpPos, double wi, List<String> warnings) {
+        Piv piv = Piv.of(kpPos, VelocityPi.ofRadPerS(kv, wi));
         Optional<LowPass1> lp = tau > 0 ? Optional.of(LowPass1.ofRadPerS(1.0 / tau)) : Optional.empty();
-        return new PidAsPiv(piv, lp);
+        return new PidAsPiv(piv, lp, warnings);
+    }
+
+    /** The other assignment, spelled out, unless the zeros coincide (then both assignments are the same PIV). */
+    private static List<String> swapWarning(double kv, double kpPos, double wi, String rule) {
+        if (Math.abs(kpPos - wi) <= 1e-12 * Math.max(kpPos, wi)) return List.of();
+        return List.of("the PID's zeros " + Units.g4(Math.min(kpPos, wi)) + " and " + Units.g4(Math.max(kpPos, wi))
+                + " rad/s are interchangeable; " + rule + " gives Kp = " + Units.g4(kpPos) + " 1/s, integral corner "
+                + Units.formatRadPerSAsHz(wi) + "; the other gives Kp = " + Units.g4(wi) + " 1/s, integral corner " + Units.formatRadPerSAsHz(kpPos)
+                + " (same single-loop transfer function, different reference response): pick the one that matches the drive");
+    }
+
+    /**
+     * Whether every gain and the filter time constant agree with {@code other} within {@code relativeTolerance}
+     * (relative to the larger of each pair, so two zeros are close).
+     * For round trips PID → PIV → PID, where {@link #equals} fails on rounding (1e-16).
+     */
+    public boolean isCloseTo(Pid other, double relativeTolerance) {
+        Objects.requireNonNull(other, "other");
+        if (!(relativeTolerance >= 0)) throw new IllegalArgumentException("relative tolerance must be non-negative, got " + relativeTolerance);
+        return close(kp, other.kp, relativeTolerance) && close(ki, other.ki, relativeTolerance) && close(kd, other.kd, relativeTolerance)
+                && close(tau, other.tau, relativeTolerance);
+    }
+
+    static boolean close(double x, double y, double rel) {
+        return Math.abs(x - y) <= rel * Math.max(Math.abs(x), Math.abs(y));
     }
 
     @Override public boolean equals(Object o) {
@@ -123,6 +183,6 @@ public final class Pid {
     public String describe(Motion motion) {
         String x = motion.positionUnit();
         return "PID: KP = " + Units.g4(kp) + " per " + x + ", KI = " + Units.g4(ki) + " per " + x + "·s, KD = " + Units.g4(kd) + " per " + motion.velocityUnit() + ", "
-                + (tau > 0 ? "derivative filter " + Checks.hz(1 / tau) + " (τ = " + Units.g4(tau) + " s)" : "no derivative filter");
+                + (tau > 0 ? "derivative filter " + Units.formatRadPerSAsHz(1 / tau) + " (τ = " + Units.g4(tau) + " s)" : "no derivative filter");
     }
 }

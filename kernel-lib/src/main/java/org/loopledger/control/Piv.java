@@ -94,14 +94,25 @@ public final class Piv {
         double kd = kv - kP * tau;
         double slowest = Math.max(wi, kp);
         if (kd < -1e-12 * kv || !(kP > 0)) {
-            throw new IllegalArgumentException("a derivative filter with corner " + Checks.hz(1 / tau) + " (τ = " + Units.g4(tau)
+            throw new IllegalArgumentException("a derivative filter with corner " + Units.formatRadPerSAsHz(1 / tau) + " (τ = " + Units.g4(tau)
                     + " s) sits between this PIV's zeros, so the PID would need KP = " + Units.g4(kP) + " and KD = " + Units.g4(kd)
-                    + " (one negative). Choose a corner of at least " + Checks.hz(slowest));
+                    + " (one negative). Choose a corner of at least " + Units.formatRadPerSAsHz(slowest));
         }
         return Pid.withTimeConstant(kP, ki, Math.max(0, kd), tau);
     }
 
     @Override public boolean equals(Object o) { return o instanceof Piv p && p.kp == kp && p.velocity.equals(velocity); }
+
+    /**
+     * Whether K<sub>p</sub>, K<sub>v</sub> and ω<sub>i</sub> agree with {@code other} within {@code relativeTolerance}
+     * (relative to the larger of each pair). For round trips PIV → PID → PIV, where {@link #equals} fails on rounding.
+     */
+    public boolean isCloseTo(Piv other, double relativeTolerance) {
+        Objects.requireNonNull(other, "other");
+        if (!(relativeTolerance >= 0)) throw new IllegalArgumentException("relative tolerance must be non-negative, got " + relativeTolerance);
+        return Pid.close(kp, other.kp, relativeTolerance) && Pid.close(velocity.velocityGain(), other.velocity.velocityGain(), relativeTolerance)
+                && Pid.close(velocity.integralCornerRadPerS(), other.velocity.integralCornerRadPerS(), relativeTolerance);
+    }
 
     @Override public int hashCode() { return Objects.hash(kp, velocity); }
 
@@ -115,7 +126,7 @@ public final class Piv {
     public String describe(Motion motion) {
         Objects.requireNonNull(motion, "motion");
         double kv = velocity.velocityGain();
-        String integral = ", integral corner " + (velocity.hasIntegral() ? Checks.hz(velocity.integralCornerRadPerS()) : "none");
+        String integral = ", integral corner " + (velocity.hasIntegral() ? Units.formatRadPerSAsHz(velocity.integralCornerRadPerS()) : "none");
         if (motion == Motion.ROTARY) return "PIV: Kp = " + Units.g4(kp) + " 1/s, Kv = " + Units.g4(kv) + " " + motion.velocityGainUnit() + integral;
         return "PIV: Kp = " + Units.g4(kp) + " 1/s (" + Units.g4(Motion.metresPerMinutePerMm(kp)) + " (m/min)/mm), Kv = " + Units.g4(kv) + " "
                 + motion.velocityGainUnit() + " (" + Units.g4(Motion.perMmPerS(kv)) + " per mm/s)" + integral;

@@ -72,7 +72,8 @@ public final class VelocityLoop {
     }
 
     static Frf withCoherence(Frf f, Frf source) {
-        return source.coherence().map(f::withCoherence).orElse(f);
+        Frf g = source.isComputedFromModel() ? f.asComputedFromModel() : f; // a loop around a model plant is a model's response
+        return source.coherence().map(g::withCoherence).orElse(g);
     }
 
     public Frf plant() { return plant; }

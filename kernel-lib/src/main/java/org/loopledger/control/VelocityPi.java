@@ -82,6 +82,6 @@ public final class VelocityPi {
 
     /** K<sub>v</sub> per rad/s (rotary) or per m/s (linear), and the integral corner. */
     public String describe(org.loopledger.lti.Motion motion) {
-        return "velocity PI: Kv = " + Units.g4(kv) + " " + motion.velocityGainUnit() + ", integral corner " + (omegaI == 0 ? "none" : Checks.hz(omegaI));
+        return "velocity PI: Kv = " + Units.g4(kv) + " " + motion.velocityGainUnit() + ", integral corner " + (omegaI == 0 ? "none" : Units.formatRadPerSAsHz(omegaI));
     }
 }

@@ -29,7 +29,7 @@ public final class MarginsRenderer {
         HtmlTable summary = HtmlTable.of("Stability margins", "Figure", "Value", "Unit", "At (Hz)");
         gainMarginRow(summary, "Gain margin (increase)", m.upperGainMargin(), none);
         gainMarginRow(summary, "Gain margin (decrease)", m.lowerGainMargin(), none);
-        Optional<GainCrossover> pm = m.phaseMargin();
+        Optional<GainCrossover> pm = m.phaseMarginCrossover();
         summary.row("Phase margin", pm.map(g -> Figures.fixed2(g.phaseMarginDeg())).orElse(none), "deg", pm.map(g -> Figures.hz(g.omegaRadPerS())).orElse(Figures.NONE));
         if (m.delayMarginS().isPresent()) {
             GainCrossover worst = m.gainCrossovers().stream().min((a, b) -> Double.compare(a.delayMarginS(), b.delayMarginS())).orElseThrow();

@@ -3,8 +3,8 @@ package org.loopledger.frf;
 import org.loopledger.lti.Units;
 
 /**
- * Logarithmically spaced frequency grids. Mind the units: {@link #logRadPerS} and {@link #logHz}
- * return <b>rad/s</b> (what {@code TransferFunction.response} and {@code Frf} take); only
+ * Logarithmically spaced frequency grids; each name says the unit it returns. {@link #logRadPerS} and
+ * {@link #logSpacedRadPerS} return rad/s (what {@code TransferFunction.response} and {@code Frf} take);
  * {@link #logSpacedHz} returns Hz (for labels, tables and Hz-based APIs).
  */
 public final class FrequencyGrid {
@@ -25,18 +25,17 @@ public final class FrequencyGrid {
     }
 
     /**
-     * {@code n} log-spaced points from {@code loHz} to {@code hiHz}, <b>returned in rad/s, not Hz</b>:
-     * the limits are given in Hz but every value is 2π·f, ready for {@code TransferFunction.response}
-     * and {@code Frf.ofModel}. {@code logHz(1, 1000, n)[0]} is 6.283, not 1. For the same grid in Hz
-     * use {@link #logSpacedHz}.
+     * {@code n} log-spaced points from {@code fromHz} to {@code toHz} (limits in Hz), returned in rad/s
+     * (2π·f), ready for {@code TransferFunction.response} and {@code Frf.ofModel}:
+     * {@code logSpacedRadPerS(1, 1000, n)[0]} is 6.283. For the same grid in Hz use {@link #logSpacedHz}.
      */
-    public static double[] logHz(double loHz, double hiHz, int n) {
-        return logRadPerS(Units.hzToRadPerS(loHz), Units.hzToRadPerS(hiHz), n);
+    public static double[] logSpacedRadPerS(double fromHz, double toHz, int n) {
+        return logRadPerS(Units.hzToRadPerS(fromHz), Units.hzToRadPerS(toHz), n);
     }
 
     /**
      * {@code n} points from {@code loHz} to {@code hiHz} inclusive, equally spaced in log f, <b>returned
-     * in Hz</b> (the same grid as {@link #logHz}, divided by 2π; end points exact).
+     * in Hz</b> (the same grid as {@link #logSpacedRadPerS}, divided by 2π; end points exact).
      */
     public static double[] logSpacedHz(double loHz, double hiHz, int n) {
         if (!(loHz > 0) || !(hiHz > loHz) || Double.isInfinite(hiHz)) {

@@ -17,6 +17,8 @@ import java.util.Optional;
  * unwrapped phase, never on real and imaginary parts). Arithmetic with a model evaluates the model on
  * this grid. Coherence and uncertainty survive scaling by a model (uncertainty scaled by |model|);
  * a product or quotient of two measured {@code Frf}s drops both, since their joint statistics are unknown.
+ * An {@code Frf} knows whether it holds measured data or a model's response ({@link #isComputedFromModel}),
+ * so analyses describe it truthfully.
  */
 public final class Frf {
     private final double[] omega;
@@ -24,8 +26,10 @@ public final class Frf {
     private final double[] im;
     private final double[] coherence;   // null when absent
     private final double[] uncertainty; // null when absent
+    private final boolean computed;     // true: evaluated from models only, false: holds measured data
 
-    private Frf(double[] omega, double[] re, double[] im, double[] coherence, double[] uncertainty) {
+    private Frf(double[] omega, double[] re, double[] im, double[] coherence, double[] uncertainty, boolean computed) {
+        this.computed = computed;
         this.omega = omega;
         this.re = re;
         this.im = im;
@@ -47,7 +51,7 @@ public final class Frf {
                         + ") is not finite: " + re[i] + " + j" + im[i] + "; drop or restrict that point");
             }
         }
-        return new Frf(omegaRadPerS.clone(), re.clone(), im.clone(), null, null);
+        return new Frf(omegaRadPerS.clone(), re.clone(), im.clone(), null, null, false);
     }
 
     /** From a grid in Hz (converted to rad/s) and the real and imaginary parts. */
@@ -62,8 +66,19 @@ public final class Frf {
         validateGrid(omegaRadPerS);
         double[] re = new double[omegaRadPerS.length], im = new double[omegaRadPerS.length];
         g.response(omegaRadPerS, re, im);
-        return ofParts(omegaRadPerS, re, im);
+        Frf f = ofParts(omegaRadPerS, re, im);
+        return new Frf(f.omega, f.re, f.im, null, null, true);
     }
+
+    /**
+     * Where the values come from: true when computed from models only ({@link #ofModel}, and arithmetic
+     * between computed responses and models), false when they hold measured data ({@link #ofParts},
+     * estimates, and anything multiplied by them). Not part of {@link #equals}: equal values are equal data.
+     */
+    public boolean isComputedFromModel() { return computed; }
+
+    /** The same values, marked as computed from models (for responses built from model arrays, e.g. a loop around a model plant). */
+    public Frf asComputedFromModel() { return computed ? this : new Frf(omega, re, im, coherence, uncertainty, true); }
 
     private static void validateGrid(double[] w) {
         if (w == null || w.length == 0) throw new IllegalArgumentException("an FRF needs at least one frequency");
@@ -88,7 +103,7 @@ public final class Frf {
                 throw new IllegalArgumentException("coherence at index " + i + " is " + coherence[i] + "; it must lie in [0, 1]");
             }
         }
-        return new Frf(omega, re, im, coherence.clone(), uncertainty);
+        return new Frf(omega, re, im, coherence.clone(), uncertainty, computed);
     }
 
     /** Same values with a per-point uncertainty (standard deviation, non-negative, copied). */
@@ -101,7 +116,7 @@ public final class Frf {
                 throw new IllegalArgumentException("uncertainty at index " + i + " is " + uncertainty[i] + "; it must be finite and non-negative");
             }
         }
-        return new Frf(omega, re, im, coherence, uncertainty.clone());
+        return new Frf(omega, re, im, coherence, uncertainty.clone(), computed);
     }
 
     public int size() { return omega.length; }
@@ -165,7 +180,7 @@ public final class Frf {
             r[i] = re[i] * other.re[i] - im[i] * other.im[i];
             m[i] = re[i] * other.im[i] + im[i] * other.re[i];
         }
-        return new Frf(omega, r, m, null, null);
+        return new Frf(omega, r, m, null, null, computed && other.computed);
     }
 
     /** This/other on the same grid (coherence and uncertainty dropped). */
@@ -179,7 +194,7 @@ public final class Frf {
             r[i] = re[i] + other.re[i];
             m[i] = im[i] + other.im[i];
         }
-        return new Frf(omega, r, m, null, null);
+        return new Frf(omega, r, m, null, null, computed && other.computed);
     }
 
     /** This·G with the model evaluated on this grid; coherence kept, uncertainty scaled by |G|. */
@@ -210,7 +225,7 @@ public final class Frf {
             gr[i] += re[i];
             gi[i] += im[i];
         }
-        return new Frf(omega, gr, gi, coherence, uncertainty);
+        return new Frf(omega, gr, gi, coherence, uncertainty, computed);
     }
 
     public Frf times(double k) {
@@ -228,7 +243,7 @@ public final class Frf {
             m[i] = re[i] * gi[i] + im[i] * gr[i];
             if (u != null) u[i] = uncertainty[i] * Math.hypot(gr[i], gi[i]);
         }
-        return new Frf(omega, r, m, coherence, u);
+        return new Frf(omega, r, m, coherence, u, computed);
     }
 
     /** 1/this point by point; throws where a value is exactly zero. */
@@ -240,7 +255,7 @@ public final class Frf {
             r[i] = re[i] / d;
             m[i] = -im[i] / d;
         }
-        return new Frf(omega, r, m, coherence, null);
+        return new Frf(omega, r, m, coherence, null, computed);
     }
 
     public Frf negate() { return times(-1.0); }
@@ -268,7 +283,7 @@ public final class Frf {
     private Frf slice(int a, int b) {
         return new Frf(Arrays.copyOfRange(omega, a, b), Arrays.copyOfRange(re, a, b), Arrays.copyOfRange(im, a, b),
                 coherence == null ? null : Arrays.copyOfRange(coherence, a, b),
-                uncertainty == null ? null : Arrays.copyOfRange(uncertainty, a, b));
+                uncertainty == null ? null : Arrays.copyOfRange(uncertainty, a, b), computed);
     }
 
     /**
@@ -311,7 +326,7 @@ public final class Frf {
             if (c != null) c[j] = lerp(coherence[k], coherence[k1], t);
             if (u != null) u[j] = lerp(uncertainty[k], uncertainty[k1], t);
         }
-        return new Frf(omegaRadPerS.clone(), r, m, c, u);
+        return new Frf(omegaRadPerS.clone(), r, m, c, u, computed);
     }
 
     private static double lerp(double a, double b, double t) { return a + (b - a) * t; }

@@ -255,41 +255,4 @@ public final class Polynomial {
     }
 
     @Override public String toString() { return toString("x"); }
-
-    /**
-     * LaTeX form in {@code variable} with 4 significant digits, e.g. {@code 2 s^{2} + 3 s + 1} or
-     * {@code 1.953 \cdot 10^{-9} z + 1}; for display only (not a round-trip format).
-     */
-    public String toLatex(String variable) {
-        StringBuilder sb = new StringBuilder();
-        int n = c.length - 1;
-        for (int i = 0; i <= n; i++) {
-            double v = c[i];
-            if (v == 0 && n > 0) continue;
-            int pw = n - i;
-            if (sb.length() == 0) {
-                if (v < 0) sb.append('-');
-            } else {
-                sb.append(v < 0 ? " - " : " + ");
-            }
-            boolean one = Math.abs(v) == 1.0 && pw > 0;
-            if (!one) sb.append(latexNumber(Math.abs(v)));
-            if (pw > 0) {
-                if (!one) sb.append(' ');
-                sb.append(variable);
-                if (pw > 1) sb.append("^{").append(pw).append('}');
-            }
-        }
-        return sb.length() == 0 ? "0" : sb.toString();
-    }
-
-    /** A non-negative number with 4 significant digits in LaTeX: {@code 0.25}, {@code 1.5 \cdot 10^{-7}}. */
-    static String latexNumber(double v) {
-        String g = Units.g4(v);
-        int e = g.indexOf('e');
-        if (e < 0) return g;
-        String mant = g.substring(0, e);
-        int exp = Integer.parseInt(g.substring(e + 1));
-        return (mant.equals("1") ? "" : mant + " \\cdot ") + "10^{" + exp + "}";
-    }
 }

@@ -352,30 +352,6 @@ public final class TransferFunction {
 
     @Override public int hashCode() { return Objects.hash(num, den, timeBase, delayS); }
 
-    /**
-     * LaTeX for display, e.g. {@code \frac{s + 1}{s^{2} + 3 s + 2} e^{-0.001 s}}. A delay shows as
-     * e<sup>-τs</sup> in continuous time and as z<sup>-τ/T</sup> (possibly fractional) when sampled; a
-     * sampled system also states its sample time. Coefficients to 4 significant digits.
-     */
-    public String toLatex() {
-        String v = isDiscrete() ? "z" : "s";
-        StringBuilder sb = new StringBuilder();
-        boolean unitDen = den.degree() == 0 && den.leading() == 1.0;
-        if (unitDen) sb.append(num.toLatex(v));
-        else sb.append("\\frac{").append(num.toLatex(v)).append("}{").append(den.toLatex(v)).append('}');
-        if (delayS > 0) {
-            if (timeBase instanceof TimeBase.Sampled sm) {
-                sb.append(" \\, z^{-").append(Units.g4(delayS / sm.sampleTimeS())).append('}');
-            } else {
-                sb.append(" \\, e^{-").append(Polynomial.latexNumber(delayS)).append(" s}");
-            }
-        }
-        if (timeBase instanceof TimeBase.Sampled sm) {
-            sb.append(" \\qquad T = ").append(Polynomial.latexNumber(sm.sampleTimeS())).append("\\,\\mathrm{s}");
-        }
-        return sb.toString();
-    }
-
     /** e.g. {@code (s + 1) / (s^2 + 3 s + 2)}, with the delay and the sample time when present. */
     @Override public String toString() {
         String v = isDiscrete() ? "z" : "s";

@@ -30,6 +30,40 @@ public final class Units {
         return g4(hz) + " Hz";
     }
 
+    /**
+     * An angular frequency in rad/s shown in Hz (or kHz), as {@link #formatHz}: {@code formatRadPerSAsHz(2π·50)}
+     * is "50 Hz". The one formatter for rad/s values in messages and {@code toString} of every domain package.
+     */
+    public static String formatRadPerSAsHz(double omegaRadPerS) { return formatHz(radPerSToHz(omegaRadPerS)); }
+
+    /** An angle in degrees rounded to 2 decimals, then 4 significant digits: "53.41 deg" (never "-0 deg"). */
+    public static String formatDeg(double deg) { return g4(roundDecimals(deg, 2)) + " deg"; }
+
+    /** A level in dB rounded to 2 decimals, then 4 significant digits: "15.56 dB" (never "-0 dB"). */
+    public static String formatDb(double db) { return g4(roundDecimals(db, 2)) + " dB"; }
+
+    /** A duration with a prefix: "0 s", "12.5 us" below 1 ms, "759.6 ms" below 1 s, "2 s". */
+    public static String formatSeconds(double s) {
+        double a = Math.abs(s);
+        if (a == 0) return "0 s";
+        if (a < 1e-3) return g4(s * 1e6) + " us";
+        if (a < 1) return g4(s * 1e3) + " ms";
+        return g4(s) + " s";
+    }
+
+    /** {@code s} padded with spaces on the right to {@code width} characters (fixed-width plain-text tables). */
+    public static String padRight(String s, int width) {
+        StringBuilder b = new StringBuilder(s);
+        while (b.length() < width) b.append(' ');
+        return b.toString();
+    }
+
+    private static double roundDecimals(double v, int decimals) {
+        double f = Math.pow(10, decimals);
+        double r = Math.round(v * f) / f;
+        return r == 0 ? 0 : r; // no "-0"
+    }
+
     /** Formats a plain number with 4 significant digits, locale independent, trailing zeros dropped. */
     public static String g4(double v) {
         if (Double.isNaN(v)) return "NaN";

@@ -139,7 +139,7 @@ public final class AutoTune {
     public static TuningResult onModel(TransferFunction plantToVelocity, Motion motion, DriveTiming timing, FilterChain filters, TuningSpec spec) {
         if (plantToVelocity.isDiscrete()) throw new IllegalArgumentException("give the continuous plant model; the drive timing adds sampling effects");
         double top = timing.isSampled() ? 0.45 * timing.sampleRateHz() : 5000;
-        double[] grid = FrequencyGrid.logHz(0.5, top, 3000);
+        double[] grid = FrequencyGrid.logSpacedRadPerS(0.5, top, 3000);
         return onMeasured(List.of(PlantCase.of("model", Frf.ofModel(plantToVelocity, grid), motion)), timing, filters, spec);
     }
 

@@ -1,5 +1,6 @@
 package org.loopledger.tune;
 
+import org.loopledger.analysis.Spec;
 import org.loopledger.lti.Units;
 
 import java.util.Arrays;
@@ -14,8 +15,13 @@ import java.util.Locale;
  * <p>Defaults (common practice for servo axes): phase margin ≥ 45°, gain margin ≥ 8 dB, Ms ≤ 1.8
  * (5.1 dB), velocity-integral corner between 1/10 and 1/2 of the velocity crossover, position gain at
  * most 1/3 of the velocity crossover.
+ *
+ * <p>The robustness limits are an {@link Spec analysis.Spec} ({@link #limits()}), validated by its rules
+ * alone, so a notebook states 45° / 8 dB / 1.8 once and checks the loops with the same object:
+ * {@code spec.limits().check(loop)}. The tuner also always requires closed-loop stability.
  */
 public final class TuningSpec {
+    private final Spec limits;
     private final double minPhaseMarginDeg;
     private final double minGainMarginDb;
     private final double maxSensitivityPeak;
@@ -27,9 +33,10 @@ public final class TuningSpec {
     private final boolean allowLowPass;
 
     private TuningSpec(Builder b) {
-        this.minPhaseMarginDeg = b.minPhaseMarginDeg;
-        this.minGainMarginDb = b.minGainMarginDb;
-        this.maxSensitivityPeak = b.maxSensitivityPeak;
+        this.limits = b.limits;
+        this.minPhaseMarginDeg = limits.minPhaseMarginDeg().getAsDouble();
+        this.minGainMarginDb = limits.minGainMarginDb().getAsDouble();
+        this.maxSensitivityPeak = limits.maxSensitivityPeak().getAsDouble();
         this.velocityCrossoverHz = b.velocityCrossoverHz;
         this.maxVelocityCrossoverHz = b.maxVelocityCrossoverHz;
         this.positionBandwidthHz = b.positionBandwidthHz;
@@ -42,6 +49,9 @@ public final class TuningSpec {
 
     /** The defaults above. */
     public static TuningSpec defaults() { return builder().build(); }
+
+    /** The robustness limits (phase margin, gain margin, Ms) as an analysis spec, to check any loop against. */
+    public Spec limits() { return limits; }
 
     public double minPhaseMarginDeg() { return minPhaseMarginDeg; }
 
@@ -116,9 +126,7 @@ public final class TuningSpec {
 
     /** Builder with validated, unit-bearing setters. */
     public static final class Builder {
-        private double minPhaseMarginDeg = 45;
-        private double minGainMarginDb = 8;
-        private double maxSensitivityPeak = 1.8;
+        private Spec limits = Spec.builder().minPhaseMarginDeg(45).minGainMarginDb(8).maxSensitivityPeak(1.8).build();
         private double velocityCrossoverHz = Double.NaN;
         private double maxVelocityCrossoverHz = Double.POSITIVE_INFINITY;
         private double positionBandwidthHz = Double.NaN;
@@ -128,27 +136,56 @@ public final class TuningSpec {
 
         private Builder() {}
 
-        public Builder minPhaseMarginDeg(double deg) {
-            if (!(deg > 0 && deg < 90)) throw new IllegalArgumentException("minimum phase margin must lie in (0, 90) deg, got " + deg);
-            minPhaseMarginDeg = deg;
+        /**
+         * The robustness limits as an analysis spec: it must set the phase margin, the gain margin and Ms, and
+         * nothing the tuner cannot aim at (bandwidth, delay margin, Mt, lower gain margin: use the
+         * crossover and bandwidth targets below, and check the rest on the result).
+         */
+        public Builder limits(Spec spec) {
+            if (spec == null) throw new IllegalArgumentException("limits: give an analysis Spec, got null");
+            if (spec.minPhaseMarginDeg().isEmpty() || spec.minGainMarginDb().isEmpty() || spec.maxSensitivityPeak().isEmpty()) {
+                throw new IllegalArgumentException("the tuner's limits need a phase margin, a gain margin and Ms, got " + spec
+                        + "; for example Spec.builder().minPhaseMarginDeg(45).minGainMarginDb(8).maxSensitivityPeak(1.8).build()");
+            }
+            if (spec.minBandwidthHz().isPresent() || spec.minDelayMarginS().isPresent() || spec.maxComplementaryPeak().isPresent()
+                    || spec.minLowerGainMarginDb().isPresent()) {
+                throw new IllegalArgumentException("the tuner aims only at phase margin, gain margin and Ms (and always requires stability), got "
+                        + spec + "; set a bandwidth with positionBandwidthHz or velocityCrossoverHz, and check other requirements on the result");
+            }
+            limits = spec.requiresStability()
+                    ? Spec.builder().minPhaseMarginDeg(spec.minPhaseMarginDeg().getAsDouble()).minGainMarginDb(spec.minGainMarginDb().getAsDouble())
+                            .maxSensitivityPeak(spec.maxSensitivityPeak().getAsDouble()).build()
+                    : spec;
             return this;
         }
 
-        public Builder minGainMarginDb(double db) {
-            if (!(db > 0 && db < 40)) throw new IllegalArgumentException("minimum gain margin must lie in (0, 40) dB, got " + db);
-            minGainMarginDb = db;
+        private Builder rebuild(double pm, double gm, double ms) {
+            limits = Spec.builder().minPhaseMarginDeg(pm).minGainMarginDb(gm).maxSensitivityPeak(ms).build();
             return this;
+        }
+
+        /** Minimum phase margin; validated by {@link Spec.Builder#minPhaseMarginDeg}, in (0, 90) deg. */
+        public Builder minPhaseMarginDeg(double deg) {
+            return rebuild(deg, limits.minGainMarginDb().getAsDouble(), limits.maxSensitivityPeak().getAsDouble());
+        }
+
+        /** Minimum gain margin; validated by {@link Spec.Builder#minGainMarginDb}, positive dB. */
+        public Builder minGainMarginDb(double db) {
+            return rebuild(limits.minPhaseMarginDeg().getAsDouble(), db, limits.maxSensitivityPeak().getAsDouble());
         }
 
         /** Upper limit on Ms = max|S| (a ratio greater than 1, e.g. 1.6; use maxSensitivityPeakDb for dB). */
         public Builder maxSensitivityPeak(double ms) {
-            if (!(ms > 1 && ms < 10)) throw new IllegalArgumentException("maximum sensitivity peak Ms must lie in (1, 10), got " + ms
-                    + " (it is a ratio; for dB use maxSensitivityPeakDb)");
-            maxSensitivityPeak = ms;
-            return this;
+            return rebuild(limits.minPhaseMarginDeg().getAsDouble(), limits.minGainMarginDb().getAsDouble(), ms);
         }
 
-        public Builder maxSensitivityPeakDb(double db) { return maxSensitivityPeak(Units.dbToRatio(db)); }
+        /** Upper limit on Ms in dB (above 0 dB). */
+        public Builder maxSensitivityPeakDb(double db) {
+            if (!(db > 0) || !Double.isFinite(db)) {
+                throw new IllegalArgumentException("maximum sensitivity peak must be above 0 dB, got " + db + " dB; typical limits are 2.3 to 6 dB");
+            }
+            return maxSensitivityPeak(Units.dbToRatio(db));
+        }
 
         /** Put the velocity-loop crossover at this frequency (worst load case) and choose the rest; the verdict checks it (±1 %). */
         public Builder velocityCrossoverHz(double hz) {

@@ -17,7 +17,7 @@ public final class MarginsBenchmark {
         TransferFunction plant = TransferFunction.continuous(new double[] {1.0 / (500 * 500), 0.02 / 500, 1},
                 new double[] {0.01 / (700 * 700), 0.01 * 0.04 / 700, 0.01, 0}).withDelay(125e-6);
         TransferFunction pi = TransferFunction.continuous(new double[] {2, 2 * 60}, new double[] {1, 0});
-        double[] w = FrequencyGrid.logHz(1, 8000, 2000);
+        double[] w = FrequencyGrid.logSpacedRadPerS(1, 8000, 2000);
         double[] re = new double[w.length], im = new double[w.length];
         plant.times(pi).response(w, re, im);
         int warm = 2000, runs = 5000;

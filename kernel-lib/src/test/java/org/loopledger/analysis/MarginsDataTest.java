@@ -19,6 +19,32 @@ class MarginsDataTest {
     static Frf sampled(TransferFunction l) { return Frf.ofModel(l, FrequencyGrid.logRadPerS(0.01, 100, 2000)); }
 
     /**
+     * An Frf computed from a model is described as such, measured data as measured data; the crossover accessor
+     * is named for what it returns (the old {@code phaseMargin()} returned a GainCrossover). A loop built around a
+     * model plant keeps the origin.
+     */
+    @Test
+    void marginsSayWhereTheDataComeFrom() {
+        TransferFunction l = MarginsModelTest.third(1);
+        Frf computed = sampled(l);
+        Frf measured = Frf.ofParts(computed.omegaRadPerS(), computed.real(), computed.imag());
+        assertTrue(computed.isComputedFromModel());
+        assertFalse(measured.isComputedFromModel());
+        String c = Margins.of(computed).toString(), m = Margins.of(measured).toString();
+        assertFalse(c.contains("measured data"), c);
+        assertTrue(c.startsWith("Margins (model response on a grid, 2000 points"), c);
+        assertTrue(m.startsWith("Margins (measured data, 2000 points"), m);
+        assertTrue(computed.times(l).isComputedFromModel());
+        assertFalse(measured.times(computed).isComputedFromModel(), "anything multiplied by measured data is measured");
+        assertTrue(computed.restrictedToRadPerS(0.1, 10).isComputedFromModel());
+        var loops = org.loopledger.control.CascadeLoops.of(computed, org.loopledger.control.Piv.of(1, 0.1, 0.1),
+                org.loopledger.control.FilterChain.none(), org.loopledger.control.DriveTiming.continuous());
+        assertTrue(loops.velocityLoop().isComputedFromModel() && loops.plantInput().isComputedFromModel());
+        assertThrows(NoSuchMethodException.class, () -> Margins.class.getMethod("phaseMargin"));
+        assertEquals(GainCrossover.class, Margins.of(l).phaseMarginCrossover().orElseThrow().getClass());
+    }
+
+    /**
      * Log-linear interpolation errs by about Δ²/8 times the curvature of log|L| and phase in ln ω (order 1
      * here): ~3e-6. Tolerance 1e-4 relative on frequencies and ratios, 1e-3 deg on phase margins.
      * References: the hand results of MarginsModelTest (phase crossover √2, GM 6/K) and the model's margins.
@@ -34,7 +60,7 @@ class MarginsDataTest {
         assertEquals(Math.sqrt(2), pc.omegaRadPerS(), 1e-4 * Math.sqrt(2));
         assertEquals(6 / k, pc.gainMarginRatio(), 1e-4 * 6 / k);
         assertEquals(model.gainCrossovers().size(), data.gainCrossovers().size());
-        GainCrossover gm = model.phaseMargin().get(), gd = data.phaseMargin().get();
+        GainCrossover gm = model.phaseMarginCrossover().get(), gd = data.phaseMarginCrossover().get();
         assertEquals(gm.omegaRadPerS(), gd.omegaRadPerS(), 1e-4 * gm.omegaRadPerS());
         assertEquals(gm.phaseMarginDeg(), gd.phaseMarginDeg(), 1e-3);
         assertEquals(gm.delayMarginS(), gd.delayMarginS(), 1e-4 * gm.delayMarginS());
@@ -54,7 +80,8 @@ class MarginsDataTest {
     /** Raw arrays (the fast path) give the very same numbers as the Frf they came from. */
     @Test
     void arraysFastPathEqualsFrfPath() {
-        Frf f = sampled(MarginsModelTest.third(2));
+        Frf m = sampled(MarginsModelTest.third(2));
+        Frf f = Frf.ofParts(m.omegaRadPerS(), m.real(), m.imag()); // raw arrays carry no origin: compare with plain data
         Margins a = Margins.ofArrays(f.omegaRadPerS(), f.real(), f.imag());
         Margins b = Margins.of(f);
         assertEquals(b.toString(), a.toString());

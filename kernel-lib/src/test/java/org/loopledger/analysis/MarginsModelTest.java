@@ -176,7 +176,7 @@ class MarginsModelTest {
         assertEquals(2.67, pc.gainMarginRatio(), 0.005);            // book, 3 significant figures
         assertEquals(8.0 / 3, pc.gainMarginRatio(), 1e-10);         // by hand
         assertEquals(Math.sqrt(3), pc.omegaRadPerS(), 1e-10);       // by hand
-        GainCrossover gc = m.phaseMargin().orElseThrow();
+        GainCrossover gc = m.phaseMarginCrossover().orElseThrow();
         assertEquals(41.7, gc.phaseMarginDeg(), 0.05);             // book, 0.1 deg
         double wgc = Math.sqrt(Math.cbrt(9) - 1);                   // 1 + ω² = 3^(2/3)
         assertEquals(wgc, gc.omegaRadPerS(), 1e-10);
@@ -200,7 +200,7 @@ class MarginsModelTest {
         assertEquals(19.4, m.phaseMarginDeg().getAsDouble(), 0.1);
         assertEquals(3.92, m.sensitivityPeak().magnitude(), 0.01);
         assertEquals(3.35, m.complementaryPeak().magnitude(), 0.01);
-        assertEquals(0.236, m.phaseMargin().orElseThrow().omegaRadPerS(), 0.001);
+        assertEquals(0.236, m.phaseMarginCrossover().orElseThrow().omegaRadPerS(), 0.001);
     }
 
     // ---------------------------------------------------------------- conditionally stable loops
@@ -261,7 +261,7 @@ class MarginsModelTest {
         double k = 2, tau = 0.1;
         TransferFunction l = TransferFunction.continuous(new double[] {k}, new double[] {1, 0}).withDelay(tau);
         Margins m = Margins.of(l);
-        GainCrossover gc = m.phaseMargin().orElseThrow();
+        GainCrossover gc = m.phaseMarginCrossover().orElseThrow();
         assertEquals(k, gc.omegaRadPerS(), 1e-12);
         assertEquals(90 - Math.toDegrees(k * tau), gc.phaseMarginDeg(), 1e-9);
         assertEquals((Math.PI / 2 - k * tau) / k, m.delayMarginS().getAsDouble(), 1e-12);
@@ -284,12 +284,12 @@ class MarginsModelTest {
     @Test
     void delayMarginIsPhaseMarginOverCrossover() {
         Margins m0 = Margins.of(third(1));
-        GainCrossover gc0 = m0.phaseMargin().orElseThrow();
+        GainCrossover gc0 = m0.phaseMarginCrossover().orElseThrow();
         double dm = m0.delayMarginS().getAsDouble();
         assertEquals(Math.toRadians(gc0.phaseMarginDeg()) / gc0.omegaRadPerS(), dm, 1e-15);
         for (double frac : new double[] {0.25, 0.5, 1.0}) {
             Margins m = Margins.of(third(1).withDelay(frac * dm));
-            GainCrossover gc = m.phaseMargin().orElseThrow();
+            GainCrossover gc = m.phaseMarginCrossover().orElseThrow();
             assertEquals(gc0.omegaRadPerS(), gc.omegaRadPerS(), 1e-12);
             assertEquals(gc0.phaseMarginDeg() * (1 - frac), gc.phaseMarginDeg(), 1e-8);
             assertEquals(dm * (1 - frac), m.delayMarginS().getAsDouble(), 1e-8);
@@ -327,7 +327,7 @@ class MarginsModelTest {
     void unstableOpenLoopNegativeDcGainBranch() {
         Margins m = Margins.of(TransferFunction.continuous(new double[] {2}, new double[] {1, -1}));
         assertEquals(1, m.openLoopUnstablePoles().getAsInt());
-        assertEquals(Math.sqrt(3), m.phaseMargin().orElseThrow().omegaRadPerS(), 1e-12);
+        assertEquals(Math.sqrt(3), m.phaseMarginCrossover().orElseThrow().omegaRadPerS(), 1e-12);
         assertEquals(60, m.phaseMarginDeg().getAsDouble(), 1e-9);
         PhaseCrossover lower = m.lowerGainMargin().orElseThrow();
         assertEquals(0, lower.omegaRadPerS(), 0);
@@ -343,7 +343,7 @@ class MarginsModelTest {
     @Test
     void integratorWithUnstablePoleAnchoredAtMinus270() {
         Margins m = Margins.of(TransferFunction.continuous(new double[] {2, 2}, new double[] {1, -1, 0}));
-        assertEquals(2, m.phaseMargin().orElseThrow().omegaRadPerS(), 1e-12);
+        assertEquals(2, m.phaseMarginCrossover().orElseThrow().omegaRadPerS(), 1e-12);
         assertEquals(-90 + 2 * Math.toDegrees(Math.atan(2)), m.phaseMarginDeg().getAsDouble(), 1e-9); // PM = ∠L + 180°
     }
 

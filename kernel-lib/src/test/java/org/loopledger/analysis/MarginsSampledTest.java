@@ -110,7 +110,7 @@ class MarginsSampledTest {
         assertEquals(Math.PI / ts, pc.omegaRadPerS(), 1e-9);
         assertEquals(2 / kt, pc.gainMarginRatio(), 1e-12);
         double theta = 2 * Math.asin(kt / 2);
-        GainCrossover gc = m.phaseMargin().orElseThrow();
+        GainCrossover gc = m.phaseMarginCrossover().orElseThrow();
         assertEquals(theta / ts, gc.omegaRadPerS(), 1e-10 * theta / ts);
         assertEquals(90 - Math.toDegrees(Math.asin(kt / 2)), gc.phaseMarginDeg(), 1e-9);
         double pmRad = Math.PI / 2 - Math.asin(kt / 2);
@@ -129,7 +129,7 @@ class MarginsSampledTest {
         TransferFunction c = MarginsModelTest.third(1);
         Margins mc = Margins.of(c);
         double pmC = mc.phaseMarginDeg().getAsDouble();
-        double wgc = mc.phaseMargin().get().omegaRadPerS();
+        double wgc = mc.phaseMarginCrossover().get().omegaRadPerS();
         double prevErr = Double.POSITIVE_INFINITY;
         for (double ts : new double[] {1e-2, 1e-3}) {
             Margins md = Margins.of(Discretization.zoh(c, ts));
@@ -177,11 +177,11 @@ class MarginsSampledTest {
     /** A sampled FRF must not reach above Nyquist: rejected with the offending frequency named. */
     @Test
     void sampledFrfAboveNyquistRejected() {
-        Frf f = Frf.ofModel(MarginsModelTest.third(1), FrequencyGrid.logHz(0.01, 60, 100));
+        Frf f = Frf.ofModel(MarginsModelTest.third(1), FrequencyGrid.logSpacedRadPerS(0.01, 60, 100));
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> MeasuredLoop.ofSampled(f, 0.01));
         assertTrue(e.getMessage().contains("Nyquist") && e.getMessage().contains("60 Hz"), e.getMessage());
         // at Nyquist (50 Hz) it is accepted
-        MeasuredLoop ok = MeasuredLoop.ofSampled(Frf.ofModel(MarginsModelTest.third(1), FrequencyGrid.logHz(0.01, 50, 100)), 0.01);
+        MeasuredLoop ok = MeasuredLoop.ofSampled(Frf.ofModel(MarginsModelTest.third(1), FrequencyGrid.logSpacedRadPerS(0.01, 50, 100)), 0.01);
         assertEquals(0.01, ok.sampleTimeS().getAsDouble());
     }
 

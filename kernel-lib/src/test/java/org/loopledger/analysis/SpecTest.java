@@ -24,7 +24,7 @@ class SpecTest {
         assertEquals("phase margin", pm.requirement());
         assertEquals(53.41, pm.achievedValue(), 0.01);
         assertEquals(45, pm.limitValue());
-        assertEquals(Margins.of(MarginsModelTest.third(1)).phaseMargin().get().frequencyHz(), pm.frequencyHz().getAsDouble(), 1e-15);
+        assertEquals(Margins.of(MarginsModelTest.third(1)).phaseMarginCrossover().get().frequencyHz(), pm.frequencyHz().getAsDouble(), 1e-15);
         SpecReport.Row gm = r.rows().get(2);
         assertEquals(20 * Math.log10(6), gm.achievedValue(), 1e-9);
         assertEquals(Math.sqrt(2) / (2 * Math.PI), gm.frequencyHz().getAsDouble(), 1e-10);
@@ -51,7 +51,7 @@ class SpecTest {
     @Test
     void nonsenseLimitsRejected() {
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> Spec.builder().minPhaseMarginDeg(-10));
-        assertTrue(e.getMessage().contains("-10") && e.getMessage().contains("(0, 180)"), e.getMessage());
+        assertTrue(e.getMessage().contains("-10") && e.getMessage().contains("(0, 90)"), e.getMessage());
         assertThrows(IllegalArgumentException.class, () -> Spec.builder().minPhaseMarginDeg(200));
         e = assertThrows(IllegalArgumentException.class, () -> Spec.builder().minGainMarginDb(0));
         assertTrue(e.getMessage().contains("positive"), e.getMessage());

@@ -103,7 +103,7 @@ class CliEndToEndTest {
             System.out.println("sum of gains = " + sum);""";
     static final String BODE_OF_CSV = """
             var g = TransferFunction.continuous(new double[] {sum}, new double[] {1, 1});
-            BodePlot.of("G", Frf.ofModel(g, FrequencyGrid.logHz(0.01, 100, 200)))""";
+            BodePlot.of("G", Frf.ofModel(g, FrequencyGrid.logSpacedRadPerS(0.01, 100, 200)))""";
     static final String SPEC = """
             Spec.builder().minPhaseMarginDeg(45).minGainMarginDb(6).build()
                 .check(TransferFunction.continuous(new double[] {2}, new double[] {1, 3, 3, 1}))""";

@@ -14,7 +14,7 @@ public final class CascadeBenchmark {
 
     public static void main(String[] args) {
         double fs = 16000;
-        double[] w = FrequencyGrid.logHz(1, fs / 2, 2000);
+        double[] w = FrequencyGrid.logSpacedRadPerS(1, fs / 2, 2000);
         TransferFunction p = CascadeLoopsTest.twoMassPlant();
         Frf plant = Frf.ofModel(p, w);
         Piv piv = Piv.of(150, 0.08, 25);

@@ -42,7 +42,7 @@ class CascadeLoopsTest {
     @Test void equivalentSingleLoopEqualsCascadeAtPlantInput() {
         // Common practice / algebra: C_v(1 + Kp/s)P_v = C_eq·P_v/s with C_eq = Kv(s + ωi)(s + Kp)/s (see Piv Javadoc).
         Random r = new Random(4242L);
-        double[] w = FrequencyGrid.logHz(0.5, 5000, 400);
+        double[] w = FrequencyGrid.logSpacedRadPerS(0.5, 5000, 400);
         TransferFunction p = twoMassPlant();
         for (int n = 0; n < 30; n++) {
             Piv piv = Piv.of(20 + 300 * r.nextDouble(), 0.01 + 0.2 * r.nextDouble(), 1 + 60 * r.nextDouble());
@@ -61,7 +61,7 @@ class CascadeLoopsTest {
 
     @Test void returnDifferenceFactorsIntoTheTwoLoops() {
         // Algebra: 1 + L_u = 1 + L_v + (Kp/s)L_v = (1 + L_v)(1 + Kp T_v/s) = (1 + L_v)(1 + L_p). Checked with delay, hold and lag.
-        double[] w = FrequencyGrid.logHz(1, 7999, 500);
+        double[] w = FrequencyGrid.logSpacedRadPerS(1, 7999, 500);
         DriveTiming t = DriveTiming.sampledAtHz(16000).withComputationDelaySamples(1.5).withCurrentLoopBandwidthHz(2500);
         CascadeLoops c = CascadeLoops.of(twoMassPlant(), Piv.of(150, 0.08, 25), FilterChain.of(Notch.ofHz(400, 20, 100)), t, w);
         for (int i = 0; i < w.length; i++) {
@@ -79,7 +79,7 @@ class CascadeLoopsTest {
         // Python evaluates the definitions with its own filters (scipy iirnotch and butter designs, which equal
         // Notch.ofDigitalQ and LowPass2 at ζ = 1/√2, see FilterReferenceTest), scipy.signal.freqz/freqs, numpy's sinc.
         double fs = 16000, delay = 0.7, fcl = 3000, kp = 120, kv = 0.06, fi = 20;
-        double[] w = FrequencyGrid.logHz(0.5, 0.999 * fs / 2, 600); // the low-pass's zero sits at Nyquist exactly
+        double[] w = FrequencyGrid.logSpacedRadPerS(0.5, 0.999 * fs / 2, 600); // the low-pass's zero sits at Nyquist exactly
         TransferFunction p = twoMassPlant();
         FilterChain f = FilterChain.of(Notch.ofDigitalQ(400, 4, fs), LowPass2.ofHz(1500, 1 / Math.sqrt(2)));
         DriveTiming t = DriveTiming.sampledAtHz(fs).withComputationDelaySamples(delay).withCurrentLoopBandwidthHz(fcl);
@@ -141,7 +141,7 @@ class CascadeLoopsTest {
         Piv piv = Piv.of(80, 0.2, 15);
         FilterChain f = FilterChain.of(LowPass1.ofHz(900));
         DriveTiming t = DriveTiming.sampledAtHz(fs).withComputationDelaySamples(1);
-        double[] w = FrequencyGrid.logHz(1, 3999, 200);
+        double[] w = FrequencyGrid.logSpacedRadPerS(1, 3999, 200);
         CascadeLoops approx = CascadeLoops.of(p, piv, f, t, w);
         CascadeTransferFunctions exact = CascadeTransferFunctions.sampled(p, piv, f, t);
         for (int i = 0; i < w.length; i++) {
@@ -176,7 +176,7 @@ class CascadeLoopsTest {
     }
 
     @Test void measuredPlantCoherenceIsCarriedAndGridIsKept() {
-        double[] w = FrequencyGrid.logHz(2, 2000, 100);
+        double[] w = FrequencyGrid.logSpacedRadPerS(2, 2000, 100);
         double[] coh = new double[w.length];
         java.util.Arrays.fill(coh, 0.9);
         Frf plant = Frf.ofModel(twoMassPlant(), w).withCoherence(coh);
@@ -189,13 +189,13 @@ class CascadeLoopsTest {
     }
 
     @Test void badInputGivesClearErrors() {
-        double[] w = FrequencyGrid.logHz(1, 10000, 50);
+        double[] w = FrequencyGrid.logSpacedRadPerS(1, 10000, 50);
         TransferFunction p = twoMassPlant();
         Piv piv = Piv.of(100, 0.05, 10);
         IllegalArgumentException e = assertThrows(IllegalArgumentException.class,
                 () -> CascadeLoops.of(p, piv, FilterChain.none(), DriveTiming.sampledAtHz(8000), w));
         assertTrue(e.getMessage().contains("Nyquist") && e.getMessage().contains("10 kHz"), e.getMessage());
-        double[] w2 = FrequencyGrid.logHz(1, 3000, 50);
+        double[] w2 = FrequencyGrid.logSpacedRadPerS(1, 3000, 50);
         IllegalArgumentException g = assertThrows(IllegalArgumentException.class,
                 () -> CascadeLoops.of(p, piv, FilterChain.of(Notch.ofHz(5000, 20, 100)), DriveTiming.sampledAtHz(8000), w2));
         assertTrue(g.getMessage().contains("notch centre"), g.getMessage());

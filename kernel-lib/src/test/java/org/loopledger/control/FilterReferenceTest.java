@@ -202,4 +202,16 @@ class FilterReferenceTest {
             assertTrue(g.getMessage().contains("sample rate"), g.getMessage());
         }
     }
+
+    /** A notch is made only through unit-named factories: {@code new Notch(620, 20, 250)} read as Hz but took rad/s. */
+    @Test
+    void notchHasNoUnitlessConstructor() {
+        assertEquals(0, Notch.class.getConstructors().length, "no public constructor");
+        Notch hz = Notch.ofHz(620, 20, 250), rad = Notch.ofRadPerS(2 * Math.PI * 620, 20, 2 * Math.PI * 250); // 1 Hz = 2π rad/s
+        assertEquals(hz, rad);
+        assertEquals(hz.hashCode(), rad.hashCode());
+        assertEquals(620, hz.centreHz(), 1e-12);
+        assertEquals(250, hz.widthHz(), 1e-12);
+        assertNotEquals(hz, Notch.ofHz(620, 20, 251));
+    }
 }

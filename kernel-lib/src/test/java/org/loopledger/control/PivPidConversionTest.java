@@ -96,6 +96,40 @@ class PivPidConversionTest {
         assertSameResponse(a.equivalentSingleLoop(), b.equivalentSingleLoop(), 1e-13, "swapped zeros");
     }
 
+    /**
+     * A drive's PIV with its integral corner above its position gain (Kp = 50 1/s, ωi = 2π·20 = 125.7 rad/s, Kv = 0.3):
+     * the fixed rule "corner is the lower zero" swaps them; it must say so, and the nearest-Kp conversion must not swap.
+     * Closed form (by hand, common practice for the PIV cascade): C_eq = Kv(1 + ωi/s)(s + Kp) = Kv(s + ωi)(s + Kp)/s, so
+     * KP = Kv(ωi + Kp) = 0.3·175.66 = 52.70, KI = Kv·ωi·Kp = 0.3·125.66·50 = 1885, KD = Kv = 0.3, and N(s)/KD =
+     * s² + (KP/KD)s + KI/KD has the roots -Kp and -ωi.
+     */
+    @Test void cornerAboveKpIsNotSilentlySwapped() {
+        double kp = 50, wi = 2 * Math.PI * 20, kv = 0.3;
+        Piv drive = Piv.of(kp, kv, 20);
+        Pid pid = drive.toPid();
+        assertEquals(kv * (wi + kp), pid.proportionalGain(), 1e-12 * pid.proportionalGain());
+        assertEquals(kv * wi * kp, pid.integralGain(), 1e-12 * pid.integralGain());
+        assertEquals(kv, pid.derivativeGain(), 0);
+        PidAsPiv fixedRule = pid.toPiv(ZeroAssignment.INTEGRAL_CORNER_IS_LOWER_ZERO);
+        assertEquals(wi, fixedRule.piv().positionGainPerS(), 1e-9 * wi, "the fixed rule takes the larger zero as Kp");
+        assertEquals(1, fixedRule.warnings().size(), fixedRule.toString());
+        String w = fixedRule.warnings().get(0);
+        assertTrue(w.contains("interchangeable") && w.contains("the other gives Kp = 50 1/s"), w);
+        PidAsPiv nearest = pid.toPivNearestPositionGain(45); // the drive's Kp, roughly known
+        assertEquals(kp, nearest.piv().positionGainPerS(), 1e-12 * kp);
+        assertEquals(wi, nearest.piv().velocity().integralCornerRadPerS(), 1e-12 * wi);
+        assertEquals(kv, nearest.piv().velocity().velocityGain(), 1e-12 * kv);
+        assertTrue(nearest.piv().isCloseTo(drive, 1e-12), nearest.toString());
+        assertFalse(fixedRule.piv().isCloseTo(drive, 1e-3));
+        assertTrue(nearest.warnings().stream().noneMatch(x -> x.contains("factor of 2")), nearest.toString());
+        // an expectation far from both zeros is flagged
+        assertTrue(pid.toPivNearestPositionGain(5000).warnings().stream().anyMatch(x -> x.contains("factor of 2")));
+        // round trip PID -> PIV -> PID: equal up to rounding, which isCloseTo accepts and equals need not
+        Pid again = nearest.piv().toPid();
+        assertTrue(again.isCloseTo(pid, 1e-12), again + " vs " + pid);
+        assertFalse(again.isCloseTo(Pid.ideal(pid.proportionalGain() * 1.001, pid.integralGain(), pid.derivativeGain()), 1e-6));
+    }
+
     @Test void pidWithoutIntegralGivesPivWithoutIntegral() {
         Pid pid = Pid.ideal(5, 0, 0.02); // N = 0.02 s² + 5 s = 0.02 s (s + 250)
         Piv p = pid.toPiv(ZeroAssignment.INTEGRAL_CORNER_IS_LOWER_ZERO).piv();

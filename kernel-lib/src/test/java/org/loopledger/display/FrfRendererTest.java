@@ -25,7 +25,7 @@ class FrfRendererTest {
         double wr = 2 * Math.PI * 300, wa = 2 * Math.PI * 200, z = 0.02;
         TransferFunction g = TransferFunction.continuous(new double[] {wr * wr / (wa * wa), 2 * z * wr * wr / wa, wr * wr},
                 new double[] {1, 2 * z * wr, wr * wr, 0, 0});
-        return Frf.ofModel(g, FrequencyGrid.logHz(1, 4000, 2000));
+        return Frf.ofModel(g, FrequencyGrid.logSpacedRadPerS(1, 4000, 2000));
     }
 
     /** Linear interpolation in log x of a plotted series. */
@@ -55,7 +55,7 @@ class FrfRendererTest {
 
     @Test
     void frfIsABodeFigureWhoseDataPutMinus3dbAtTheCorner() throws Exception {
-        MimeBundle b = Bundles.of(Frf.ofModel(LAG, FrequencyGrid.logHz(0.001, 100, 500)));
+        MimeBundle b = Bundles.of(Frf.ofModel(LAG, FrequencyGrid.logSpacedRadPerS(0.001, 100, 500)));
         assertEquals(List.of(MimeBundle.TEXT_PLAIN, MimeBundle.IMAGE_PNG, FigureRenderer.PLOT_DATA_MIME), List.copyOf(b.data().keySet()));
         assertTrue(b.plainText().startsWith("Frf[500 points"), b.plainText());
         JsonObject data = JsonParser.parseString(b.get(FigureRenderer.PLOT_DATA_MIME).orElseThrow()).getAsJsonObject();
@@ -69,7 +69,7 @@ class FrfRendererTest {
 
     @Test
     void coherenceAddsAPanelBelow() throws Exception {
-        Frf f = Frf.ofModel(LAG, FrequencyGrid.logHz(0.01, 100, 300));
+        Frf f = Frf.ofModel(LAG, FrequencyGrid.logSpacedRadPerS(0.01, 100, 300));
         double[] coh = new double[f.size()];
         for (int i = 0; i < coh.length; i++) coh[i] = 0.5 + 0.5 * i / (coh.length - 1.0);
         MimeBundle b = Bundles.of(f.withCoherence(coh));

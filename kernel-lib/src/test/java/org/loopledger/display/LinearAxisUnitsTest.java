@@ -44,7 +44,7 @@ class LinearAxisUnitsTest {
     static final double FA = Math.sqrt(K / ML) / (2 * Math.PI), FR = Math.sqrt(K * (MM + ML) / (MM * ML)) / (2 * Math.PI);
     static final TwoMassParameters TRUTH = new TwoMassParameters(MM + ML, B, FR, 0.03, FA, 0.02, 0, Motion.LINEAR);
 
-    static Frf measured() { return Frf.ofModel(TRUTH.model(KF, false), FrequencyGrid.logHz(2, 3000, 600)); }
+    static Frf measured() { return Frf.ofModel(TRUTH.model(KF, false), FrequencyGrid.logSpacedRadPerS(2, 3000, 600)); }
 
     static List<String> row(Document d, String first, int occurrence) {
         List<List<String>> rows = new ArrayList<>();

@@ -84,7 +84,7 @@ class MarginsRendererTest {
     @Test
     void measuredLoopWarningsAreListedAndEscaped() {
         // A loop measured only below its crossover: the analysis warns that the crossover lies above the band.
-        Frf f = Frf.ofModel(TransferFunction.continuous(new double[] {100}, new double[] {1, 0}), FrequencyGrid.logHz(0.1, 1, 50));
+        Frf f = Frf.ofModel(TransferFunction.continuous(new double[] {100}, new double[] {1, 0}), FrequencyGrid.logSpacedRadPerS(0.1, 1, 50));
         Margins m = Margins.of(f);
         Document d = Jsoup.parse(MarginsRenderer.html(m));
         assertFalse(m.warnings().isEmpty());

@@ -16,6 +16,8 @@ class TransferFunctionRendererTest {
     static final TransferFunction SAMPLED = TransferFunction.discrete(new double[] {0.5}, new double[] {1, -0.5}, 1e-4);
     static final TransferFunction NEGATIVE = TransferFunction.continuous(new double[] {-2, -1, 3}, new double[] {1e-7, 0, 1});
     static final TransferFunction GAIN = TransferFunction.gain(42);
+    /** Sampled at 1 ms with a delay of 1.5 samples: the fractional delay the removed lti formatter wrote as z^{-1.5}. */
+    static final TransferFunction SAMPLED_FRACTIONAL_DELAY = TransferFunction.discrete(new double[] {0.5}, new double[] {1, -0.5}, 0.001).withDelay(0.0015);
 
     @Test
     void latexIsTheFractionInDescendingPowers() {
@@ -26,9 +28,19 @@ class TransferFunctionRendererTest {
         // 1e-7 s^2 + 1 made monic: s^2 + 1e7; the numerator is divided by 1e-7 likewise (values of 1e6 and above get powers of ten).
         assertEquals("$$\\frac{-2 \\times 10^{7} s^{2} - 10^{7} s + 3 \\times 10^{7}}{s^{2} + 10^{7}}$$", Latex.of(NEGATIVE));
         assertEquals("$$42$$", Latex.of(GAIN));
+        // A delay is e^{-τ s} with s the Laplace variable on every time base (z = e^{sT}), as the plain text says
+        // "e^(-0.0015 s)": a fractional number of samples needs no fractional power of z (written by hand).
+        assertEquals("$$\\frac{0.5}{z - 0.5}\\, e^{-0.0015\\, s}\\qquad T_s = 0.001\\,\\mathrm{s}$$", Latex.of(SAMPLED_FRACTIONAL_DELAY));
         assertEquals("1.5 \\times 10^{-5}", Latex.number(1.5e-5));
         assertEquals("10^{6}", Latex.number(1e6));
         assertEquals("-\\infty", Latex.number(Double.NEGATIVE_INFINITY));
+    }
+
+    /** One LaTeX formatter, in display: the domain value has none of its own. */
+    @Test
+    void transferFunctionHasNoLatexOfItsOwn() {
+        assertThrows(NoSuchMethodException.class, () -> TransferFunction.class.getMethod("toLatex"));
+        assertThrows(NoSuchMethodException.class, () -> org.loopledger.lti.Polynomial.class.getMethod("toLatex", String.class));
     }
 
     @Test
@@ -45,7 +57,7 @@ class TransferFunctionRendererTest {
         // Outside reference: matplotlib's mathtext parser (Debian python3-matplotlib) must accept every formula.
         PythonOracle.require("matplotlib");
         JsonArray cases = new JsonArray();
-        for (TransferFunction g : List.of(SECOND_ORDER, LAG_WITH_DELAY, SAMPLED, NEGATIVE, GAIN)) {
+        for (TransferFunction g : List.of(SECOND_ORDER, LAG_WITH_DELAY, SAMPLED, NEGATIVE, GAIN, SAMPLED_FRACTIONAL_DELAY)) {
             String tex = Latex.of(g);
             cases.add("$" + tex.substring(2, tex.length() - 2) + "$"); // mathtext takes inline math
         }

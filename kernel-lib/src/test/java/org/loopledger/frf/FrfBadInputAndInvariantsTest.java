@@ -58,7 +58,7 @@ class FrfBadInputAndInvariantsTest {
                         List.of("zero")),
                 Arguments.of("log grid with low >= high", (Executable) () -> FrequencyGrid.logRadPerS(10, 10, 5),
                         List.of("0 < low < high")),
-                Arguments.of("log grid of one point", (Executable) () -> FrequencyGrid.logHz(1, 10, 1),
+                Arguments.of("log grid of one point", (Executable) () -> FrequencyGrid.logSpacedRadPerS(1, 10, 1),
                         List.of("at least 2 points")),
                 Arguments.of("Hz log grid with low >= high", (Executable) () -> FrequencyGrid.logSpacedHz(10, 1, 5),
                         List.of("0 < low < high", "Hz")),

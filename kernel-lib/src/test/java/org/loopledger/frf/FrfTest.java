@@ -74,16 +74,26 @@ class FrfTest {
 
     // Source: 2π·numpy.logspace(log10(lo Hz), log10(hi Hz), n).
     @Test
-    void logHzGridMatchesNumpyLogspace() {
+    void logSpacedRadPerSGridMatchesNumpyLogspace() {
         double[] want = PythonOracle.doubles(numpy.get("logspace"));
-        double[] got = FrequencyGrid.logHz(0.5, 2000, 57);
+        double[] got = FrequencyGrid.logSpacedRadPerS(0.5, 2000, 57);
         for (int i = 0; i < want.length; i++) assertEquals(want[i], got[i], 1e-13 * want[i], "point " + i);
         assertEquals(Units.hzToRadPerS(0.5), got[0]);      // end points exact
         assertEquals(Units.hzToRadPerS(2000), got[56]);
     }
 
+    /** Each grid's name states the unit of what it returns (the old {@code logHz} took Hz and returned rad/s). */
+    @Test
+    void gridNamesStateTheReturnedUnit() {
+        java.util.Set<String> names = new java.util.TreeSet<>();
+        for (var m : FrequencyGrid.class.getDeclaredMethods()) if (java.lang.reflect.Modifier.isPublic(m.getModifiers())) names.add(m.getName());
+        assertEquals(java.util.Set.of("logRadPerS", "logSpacedHz", "logSpacedRadPerS"), names);
+        assertEquals(2 * Math.PI, FrequencyGrid.logSpacedRadPerS(1, 1000, 4)[0]);   // 1 Hz is 2π rad/s (common practice)
+        assertEquals(1, FrequencyGrid.logSpacedHz(1, 1000, 4)[0]);
+    }
+
     // Source: numpy.logspace(log10(lo Hz), log10(hi Hz), n), the same reference as above divided by 2π;
-    // logSpacedHz returns Hz, not rad/s (the trap logHz set for an engineer). 1e-13 relative: both are
+    // logSpacedHz returns Hz, not rad/s (logSpacedRadPerS returns the same grid in rad/s). 1e-13 relative: both are
     // 10^x of the same exponents, off by a few ulps.
     @Test
     void logSpacedHzGridMatchesNumpyLogspaceInHz() {
@@ -92,8 +102,8 @@ class FrfTest {
         for (int i = 0; i < want.length; i++) assertEquals(want[i] / (2 * Math.PI), got[i], 1e-13 * got[i], "point " + i);
         assertEquals(0.5, got[0]);                      // end points exact, in Hz
         assertEquals(2000, got[56]);
-        double[] rad = FrequencyGrid.logHz(0.5, 2000, 57);
-        for (int i = 0; i < got.length; i++) assertEquals(Units.hzToRadPerS(got[i]), rad[i], 1e-13 * rad[i], "logHz is the same grid in rad/s");
+        double[] rad = FrequencyGrid.logSpacedRadPerS(0.5, 2000, 57);
+        for (int i = 0; i < got.length; i++) assertEquals(Units.hzToRadPerS(got[i]), rad[i], 1e-13 * rad[i], "logSpacedRadPerS is the same grid in rad/s");
     }
 
     // ---------------------------------------- interpolation ----------------------------------------
@@ -215,9 +225,9 @@ class FrfTest {
     @Test
     void sampledModelAboveNyquistIsAnError() {
         TransferFunction d = TransferFunction.discrete(new double[] {0.1}, new double[] {1, -0.9}, 1e-3); // Nyquist 500 Hz
-        IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> Frf.ofModel(d, FrequencyGrid.logHz(1, 600, 50)));
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> Frf.ofModel(d, FrequencyGrid.logSpacedRadPerS(1, 600, 50)));
         assertTrue(e.getMessage().contains("above the Nyquist frequency") && e.getMessage().contains("500 Hz"), e.getMessage());
-        Frf ok = Frf.ofModel(d, FrequencyGrid.logHz(1, 500, 50)); // up to Nyquist inclusive is fine
+        Frf ok = Frf.ofModel(d, FrequencyGrid.logSpacedRadPerS(1, 500, 50)); // up to Nyquist inclusive is fine
         assertEquals(50, ok.size());
     }
 

@@ -16,7 +16,7 @@ public final class ResponseBenchmark {
                 Polynomial.ofDescending(1, 0, 0).times(Polynomial.ofDescending(1, 188, 3.55e6)).times(Polynomial.ofDescending(1, 2e3, 4e6))
                         .coefficientsDescending()).withDelay(1e-4);
         TransferFunction d = Discretization.zoh(g, 1 / 16000.0);
-        double[] w = FrequencyGrid.logHz(1, 8000, 2000);
+        double[] w = FrequencyGrid.logSpacedRadPerS(1, 8000, 2000);
         double[] re = new double[w.length], im = new double[w.length];
         int reps = 5000;
         for (TransferFunction m : new TransferFunction[] {g, d}) {

@@ -48,7 +48,7 @@ class RecordInBrowserTest {
     static Notebook notebook() {
         TransferFunction plant = TransferFunction.continuous(new double[] {1}, new double[] {1, 1});
         TransferFunction loop = TransferFunction.continuous(new double[] {2}, new double[] {1, 3, 3, 1});
-        double[] grid = FrequencyGrid.logHz(0.01, 100, 400);
+        double[] grid = FrequencyGrid.logSpacedRadPerS(0.01, 100, 400);
         Frf measured = Frf.ofModel(plant, grid);
         double[] coh = new double[grid.length];
         for (int i = 0; i < coh.length; i++) coh[i] = 0.6 + 0.4 * Math.sin(Math.PI * i / (coh.length - 1.0));

@@ -18,7 +18,7 @@ import static org.junit.jupiter.api.Assertions.*;
 class VerifyRoundTripTest {
     private static Notebook withPlotOf(double pole) {
         TransferFunction g = TransferFunction.continuous(new double[] {pole}, new double[] {1, pole});
-        Frf f = Frf.ofModel(g, FrequencyGrid.logHz(0.01, 100, 200));
+        Frf f = Frf.ofModel(g, FrequencyGrid.logSpacedRadPerS(0.01, 100, 200));
         return new Notebook(5, "{}", List.of(new Cell.Code("p", "f", 1,
                 List.of(new Output.ExecuteResult(1, Bundles.of(f).data(), Map.of())), "{}")));
     }

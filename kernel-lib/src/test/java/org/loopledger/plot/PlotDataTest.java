@@ -34,7 +34,7 @@ class PlotDataTest {
     @Test
     void bodeOfFirstOrderLagShowsMinus3dbAndMinus45degAtItsCorner() {
         // 1/(s+1): |G| = 1/sqrt(2) (-3.01 dB) and phase -45 deg at 1 rad/s = 0.159 Hz (common practice, textbook identity).
-        Frf f = Frf.ofModel(TransferFunction.continuous(new double[] {1}, new double[] {1, 1}), FrequencyGrid.logHz(0.001, 100, 500));
+        Frf f = Frf.ofModel(TransferFunction.continuous(new double[] {1}, new double[] {1, 1}), FrequencyGrid.logSpacedRadPerS(0.001, 100, 500));
         Figure fig = BodePlot.of("1/(s+1)", f);
         XYChart mag = fig.panels().get(0), ph = fig.panels().get(1);
         XYSeries m = mag.getSeriesMap().get("1/(s+1)");
@@ -87,7 +87,7 @@ class PlotDataTest {
 
     @Test
     void figuresPaintToNonBlankImages() {
-        Frf f = Frf.ofModel(TransferFunction.continuous(new double[] {1}, new double[] {1, 1}), FrequencyGrid.logHz(0.01, 10, 50));
+        Frf f = Frf.ofModel(TransferFunction.continuous(new double[] {1}, new double[] {1, 1}), FrequencyGrid.logSpacedRadPerS(0.01, 10, 50));
         BufferedImage img = GangOfFourPlot.of("GoF", f, f, f, f).toImage(1);
         assertEquals(760, img.getWidth());
         int distinct = (int) java.util.stream.IntStream.range(0, img.getWidth()).map(x -> img.getRGB(x, img.getHeight() / 3)).distinct().count();
@@ -98,7 +98,7 @@ class PlotDataTest {
     void badInputIsRefusedWithAClearMessage() {
         var e = assertThrows(IllegalArgumentException.class, () -> BodePlot.create().figure());
         assertTrue(e.getMessage().contains("add("));
-        Frf noCoh = Frf.ofModel(TransferFunction.gain(1), FrequencyGrid.logHz(1, 10, 5));
+        Frf noCoh = Frf.ofModel(TransferFunction.gain(1), FrequencyGrid.logSpacedRadPerS(1, 10, 5));
         var e2 = assertThrows(IllegalArgumentException.class, () -> CoherencePlot.of("x", noCoh));
         assertTrue(e2.getMessage().contains("no coherence"));
         assertThrows(IllegalArgumentException.class, () -> TimePlot.over(new double[] {0, 1}).signal("x", new double[] {1}));

@@ -25,7 +25,7 @@ class AutoTuneTest {
         // Rigid body P = Kt/(J s) with C = Kv (1 + ωi/s), no delay: at ω_c the phase is -90° - atan(ωi/ω_c), so
         // PM = 90° - atan(1/r) with r = ω_c/ωi, and |L(jω_c)| = 1 gives Kv = J ω_c / (Kt sqrt(1 + 1/r²)) (derivation by hand).
         double fc = 100, r = 4, wc = 2 * Math.PI * fc;
-        Frf p = Frf.ofModel(rigid(J), FrequencyGrid.logHz(1, 5000, 2000));
+        Frf p = Frf.ofModel(rigid(J), FrequencyGrid.logSpacedRadPerS(1, 5000, 2000));
         TuningSpec spec = TuningSpec.builder().velocityCrossoverHz(fc).integralRatios(r).minPhaseMarginDeg(45).build();
         TuningResult t = AutoTune.onMeasured(p, DriveTiming.continuous(), FilterChain.none(), spec);
         assertTrue(t.specMet(), t.toString());
@@ -43,7 +43,7 @@ class AutoTuneTest {
         assertEquals(fc, f.velocityCrossoverHz(), 1e-3 * fc);
         assertEquals(pmClosedForm, f.velocityLoop().phaseMarginDeg().getAsDouble(), 0.05);
         // Same check on the exact model through the continuous cascade (independent of the FRF grid).
-        CascadeLoops exact = CascadeLoops.of(rigid(J), t.piv(), FilterChain.none(), DriveTiming.continuous(), FrequencyGrid.logHz(1, 5000, 400));
+        CascadeLoops exact = CascadeLoops.of(rigid(J), t.piv(), FilterChain.none(), DriveTiming.continuous(), FrequencyGrid.logSpacedRadPerS(1, 5000, 400));
         Margins m = Margins.of(exact.transferFunctions().orElseThrow().velocityLoop());
         assertEquals(pmClosedForm, m.phaseMarginDeg().getAsDouble(), 0.05);
     }
@@ -51,7 +51,7 @@ class AutoTuneTest {
     @Test
     void modelVariantAgreesWithTheDataVariant() {
         TuningSpec spec = TuningSpec.builder().velocityCrossoverHz(150).integralRatios(5).build();
-        TuningResult onData = AutoTune.onMeasured(Frf.ofModel(rigid(J), FrequencyGrid.logHz(0.5, 7000, 3000)),
+        TuningResult onData = AutoTune.onMeasured(Frf.ofModel(rigid(J), FrequencyGrid.logSpacedRadPerS(0.5, 7000, 3000)),
                 DriveTiming.sampledAtHz(16000).withComputationDelaySamples(1).withZeroOrderHold(true), FilterChain.none(), spec);
         TuningResult onModel = AutoTune.onModel(rigid(J), DriveTiming.sampledAtHz(16000).withComputationDelaySamples(1).withZeroOrderHold(true),
                 FilterChain.none(), spec);
@@ -61,7 +61,7 @@ class AutoTuneTest {
     @Test
     void worstCaseOverLoadCasesMeetsTheSpecOnEveryCase() {
         DriveTiming drive = DriveTiming.sampledAtHz(16000).withComputationDelaySamples(1).withZeroOrderHold(true);
-        double[] grid = FrequencyGrid.logHz(2, 7000, 2000);
+        double[] grid = FrequencyGrid.logSpacedRadPerS(2, 7000, 2000);
         List<PlantCase> cases = List.of(PlantCase.of("light", Frf.ofModel(rigid(J), grid)),
                 PlantCase.of("medium", Frf.ofModel(rigid(2 * J), grid)), PlantCase.of("heavy", Frf.ofModel(rigid(4 * J), grid)));
         TuningSpec spec = TuningSpec.builder().minPhaseMarginDeg(45).minGainMarginDb(8).maxSensitivityPeak(1.8).build();
@@ -82,7 +82,7 @@ class AutoTuneTest {
         // Rigid body, 16 kHz drive with one sample of delay: the velocity loop reaches about 1 kHz, so Kp ≤ ω_cv/3
         // and the loop at the plant input cap the position loop far below the 2 kHz asked.
         DriveTiming drive = DriveTiming.sampledAtHz(16000).withComputationDelaySamples(1);
-        Frf p = Frf.ofModel(rigid(J), FrequencyGrid.logHz(2, 7000, 2000));
+        Frf p = Frf.ofModel(rigid(J), FrequencyGrid.logSpacedRadPerS(2, 7000, 2000));
         TuningResult t = AutoTune.onMeasured(p, drive, FilterChain.none(), TuningSpec.builder().positionBandwidthHz(2000).build());
         assertTrue(t.limitsMet(), "the robustness limits are met: " + t);
         assertFalse(t.specMet(), "a stated target that is missed fails the spec: " + t);
@@ -171,7 +171,7 @@ class AutoTuneTest {
         // Without a position target the best-ranked velocity candidate is the one chosen: the trace's
         // "ranked best" line, the trial line of that crossover and the final statement name the same ratio.
         DriveTiming drive = DriveTiming.sampledAtHz(16000).withComputationDelaySamples(1).withZeroOrderHold(true);
-        double[] grid = FrequencyGrid.logHz(2, 7000, 2000);
+        double[] grid = FrequencyGrid.logSpacedRadPerS(2, 7000, 2000);
         List<PlantCase> cases = List.of(PlantCase.of("light", Frf.ofModel(rigid(J), grid)), PlantCase.of("heavy", Frf.ofModel(rigid(4 * J), grid)));
         TuningResult t = AutoTune.onMeasured(cases, drive, FilterChain.none(), TuningSpec.defaults());
         assertChosenStatementNamesTheGains(t);
@@ -199,7 +199,7 @@ class AutoTuneTest {
         // the band, P = -Kt/(J s + b) with b/J well above it (phase near 180°). Either way no positive gain can
         // stabilise the loop (common practice): the tuner names the sign instead of printing margins.
         DriveTiming drive = DriveTiming.sampledAtHz(16000).withComputationDelaySamples(1);
-        double[] grid = FrequencyGrid.logHz(2, 7000, 2000);
+        double[] grid = FrequencyGrid.logSpacedRadPerS(2, 7000, 2000);
         for (TransferFunction p : List.of(rigid(J).times(-1), TransferFunction.continuous(new double[] {-KT}, new double[] {J, J * 2 * Math.PI * 20}))) {
             var e = assertThrows(IllegalArgumentException.class, () -> AutoTune.onMeasured(Frf.ofModel(p, grid), drive, FilterChain.none(), TuningSpec.defaults()));
             assertTrue(e.getMessage().contains("inverted sign") && e.getMessage().contains("Flip the sign of the velocity or the current channel"), e.getMessage());
@@ -207,14 +207,14 @@ class AutoTuneTest {
         // the same plants with the right sign tune, including a friction pole inside the band and a 1 ms measurement delay
         TransferFunction friction = TransferFunction.continuous(new double[] {KT}, new double[] {J, J * 2 * Math.PI * 20});
         assertTrue(AutoTune.onMeasured(Frf.ofModel(friction, grid), drive, FilterChain.none(), TuningSpec.defaults()).limitsMet());
-        assertDoesNotThrow(() -> AutoTune.requireVelocityPlantSign(PlantCase.of("delayed", Frf.ofModel(rigid(J).withDelay(1e-3), FrequencyGrid.logHz(20, 7000, 500)))));
+        assertDoesNotThrow(() -> AutoTune.requireVelocityPlantSign(PlantCase.of("delayed", Frf.ofModel(rigid(J).withDelay(1e-3), FrequencyGrid.logSpacedRadPerS(20, 7000, 500)))));
     }
 
     @Test
     void unreachableSpecGivesTheBestReachableFiguresAndNamesTheFailingLimit() {
         // A 1-sample delay plus hold cost phase that no PI can give back at 1.5 kHz crossover with PM ≥ 80°.
         TuningSpec spec = TuningSpec.builder().velocityCrossoverHz(1500).minPhaseMarginDeg(80).build();
-        TuningResult t = AutoTune.onMeasured(Frf.ofModel(rigid(J), FrequencyGrid.logHz(2, 7900, 1500)),
+        TuningResult t = AutoTune.onMeasured(Frf.ofModel(rigid(J), FrequencyGrid.logSpacedRadPerS(2, 7900, 1500)),
                 DriveTiming.sampledAtHz(16000).withComputationDelaySamples(1).withZeroOrderHold(true), FilterChain.none(), spec);
         assertFalse(t.specMet());
         assertTrue(t.bindingConstraint().contains("fails") && t.bindingConstraint().contains("phase margin"), t.bindingConstraint());
@@ -223,7 +223,7 @@ class AutoTuneTest {
 
     @Test
     void badInputIsRefusedClearly() {
-        Frf p = Frf.ofModel(rigid(J), FrequencyGrid.logHz(10, 1000, 200));
+        Frf p = Frf.ofModel(rigid(J), FrequencyGrid.logSpacedRadPerS(10, 1000, 200));
         var e = assertThrows(IllegalArgumentException.class, () -> AutoTune.onMeasured(p, DriveTiming.continuous(), FilterChain.none(),
                 TuningSpec.builder().velocityCrossoverHz(5000).build()));
         assertTrue(e.getMessage().contains("not inside the measured band"), e.getMessage());
@@ -232,7 +232,7 @@ class AutoTuneTest {
         assertThrows(IllegalArgumentException.class, () -> TuningSpec.builder().maxSensitivityPeak(0.8));
         assertThrows(IllegalArgumentException.class, () -> TuningSpec.builder().integralRatios(0.5));
         // Data above the drive's Nyquist frequency cannot be a sampled loop.
-        Frf wide = Frf.ofModel(rigid(J), FrequencyGrid.logHz(1, 12000, 300));
+        Frf wide = Frf.ofModel(rigid(J), FrequencyGrid.logSpacedRadPerS(1, 12000, 300));
         var e2 = assertThrows(IllegalArgumentException.class, () -> AutoTune.onMeasured(wide, DriveTiming.sampledAtHz(16000), FilterChain.none(), TuningSpec.defaults()));
         assertTrue(e2.getMessage().contains("Nyquist"), e2.getMessage());
     }

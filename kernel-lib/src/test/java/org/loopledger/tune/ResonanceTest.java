@@ -28,7 +28,7 @@ class ResonanceTest {
         // Half-power bandwidth: Δf ≈ 2ζ f for light damping (common practice); the antiresonance below it
         // and the trend removal bias the estimate a little, hence 2 % on frequency and 20 % on damping.
         double fr = 400, zr = 0.02;
-        Frf p = Frf.ofModel(twoMass(5e-4, 250, 0.02, fr, zr), FrequencyGrid.logHz(5, 3000, 3000));
+        Frf p = Frf.ofModel(twoMass(5e-4, 250, 0.02, fr, zr), FrequencyGrid.logSpacedRadPerS(5, 3000, 3000));
         List<Resonance> found = Resonances.find(p, 6);
         assertFalse(found.isEmpty());
         Resonance r = found.get(0);
@@ -36,7 +36,7 @@ class ResonanceTest {
         assertEquals(zr, r.dampingEstimate(), 0.2 * zr, r.toString());
         assertTrue(r.dampingResolved() && r.warnings().isEmpty(), "about 20 points across the peak: " + r);
         // a rigid body has none
-        assertTrue(Resonances.find(Frf.ofModel(AutoTuneTest.rigid(5e-4), FrequencyGrid.logHz(5, 3000, 500)), 3).isEmpty());
+        assertTrue(Resonances.find(Frf.ofModel(AutoTuneTest.rigid(5e-4), FrequencyGrid.logSpacedRadPerS(5, 3000, 500)), 3).isEmpty());
         assertThrows(IllegalArgumentException.class, () -> Resonances.find(p, 0));
     }
 
@@ -45,7 +45,7 @@ class ResonanceTest {
         // ζ = 0.001 at 400 Hz: half-power width 2ζf = 0.8 Hz (common practice), on a 300-point log grid from 5 to
         // 3000 Hz whose spacing at 400 Hz is 400·(ln 600/299) ≈ 8.6 Hz: the grid samples the peak once at most.
         double fr = 400;
-        Frf coarse = Frf.ofModel(twoMass(5e-4, 250, 0.02, fr, 0.001), FrequencyGrid.logHz(5, 3000, 300));
+        Frf coarse = Frf.ofModel(twoMass(5e-4, 250, 0.02, fr, 0.001), FrequencyGrid.logSpacedRadPerS(5, 3000, 300));
         Resonance r = Resonances.find(coarse, 6).get(0);
         assertFalse(r.dampingResolved(), r.toString());
         assertEquals(1, r.warnings().size(), r.toString());
@@ -55,7 +55,7 @@ class ResonanceTest {
         assertTrue(w.message().contains("damping not resolved") && w.message().contains("finer frequency resolution"), w.message());
         assertTrue(r.toString().contains("warning: damping not resolved"), r.toString());
         // the same resonance on a grid fine enough (0.05 Hz spacing, 16 points across the width): resolved, damping within 20 %
-        Frf fine = Frf.ofModel(twoMass(5e-4, 250, 0.02, fr, 0.001), FrequencyGrid.logHz(380, 420, 801));
+        Frf fine = Frf.ofModel(twoMass(5e-4, 250, 0.02, fr, 0.001), FrequencyGrid.logSpacedRadPerS(380, 420, 801));
         Resonance rf = Resonances.find(fine, 6).get(0);
         assertTrue(rf.dampingResolved(), rf.toString());
         assertEquals(0.001, rf.dampingEstimate(), 0.2 * 0.001, rf.toString());
@@ -74,7 +74,7 @@ class ResonanceTest {
         // A very lightly damped resonance at 1.2 kHz, where the 1-sample delay has taken the phase towards
         // -180°: without a notch its peak costs margin, with one the loop meets the spec at higher gain.
         DriveTiming drive = DriveTiming.sampledAtHz(16000).withComputationDelaySamples(1);
-        double[] grid = FrequencyGrid.logHz(5, 3000, 2000);
+        double[] grid = FrequencyGrid.logSpacedRadPerS(5, 3000, 2000);
         List<PlantCase> cases = List.of(PlantCase.of("axis", Frf.ofModel(twoMass(5e-4, 900, 0.02, 1200, 0.005), grid)));
         TuningSpec spec = TuningSpec.builder().build();
         NotchProposal np = NotchProposal.propose(cases, drive, FilterChain.none(), spec, 6);
@@ -108,7 +108,7 @@ class ResonanceTest {
         double fa = Math.sqrt(k / jl) / (2 * Math.PI), fr = Math.sqrt(k * (jm + jl) / (jm * jl)) / (2 * Math.PI);
         // modal damping from the same polynomials (derivation by hand): 2ζ_a ω_a = c/J_L, 2ζ_r ω_r = c (J_M + J_L)/(J_M J_L)
         double za = c / (2 * jl * 2 * Math.PI * fa), zr = c * (jm + jl) / (2 * jm * jl * 2 * Math.PI * fr);
-        double[] grid = FrequencyGrid.logHz(10, 3000, 6000); // points 0.095 % apart
+        double[] grid = FrequencyGrid.logSpacedRadPerS(10, 3000, 6000); // points 0.095 % apart
         for (int n : new int[] {Resonances.TO_POSITION, Resonances.TO_VELOCITY, Resonances.TO_ACCELERATION}) {
             Frf p = Frf.ofModel(physicalTwoMass(jm, jl, k, c, n), grid);
             List<Resonance> rs = Resonances.find(p, n, 6);
@@ -128,7 +128,7 @@ class ResonanceTest {
         assertEquals(Resonances.find(v, Resonances.TO_VELOCITY, 6), Resonances.find(v, 6));
         assertEquals(Resonances.findAntiresonances(v, Resonances.TO_VELOCITY, 6), Resonances.findAntiresonances(v, 6));
         // a rigid body to position has neither
-        Frf rigid = Frf.ofModel(TransferFunction.continuous(new double[] {1}, new double[] {5e-4, 0, 0}), FrequencyGrid.logHz(5, 3000, 500));
+        Frf rigid = Frf.ofModel(TransferFunction.continuous(new double[] {1}, new double[] {5e-4, 0, 0}), FrequencyGrid.logSpacedRadPerS(5, 3000, 500));
         assertTrue(Resonances.find(rigid, Resonances.TO_POSITION, 3).isEmpty());
         assertTrue(Resonances.findAntiresonances(rigid, Resonances.TO_POSITION, 3).isEmpty());
         assertThrows(IllegalArgumentException.class, () -> Resonances.findAntiresonances(v, 1, 0));

@@ -37,7 +37,7 @@ public final class TuneBench {
     }
 
     public static int run(PrintStream out) {
-        double[] grid = FrequencyGrid.logHz(2, 7000, 2000);
+        double[] grid = FrequencyGrid.logSpacedRadPerS(2, 7000, 2000);
         DriveTiming drive = DriveTiming.sampledAtHz(16000).withComputationDelaySamples(1).withZeroOrderHold(true);
         TuningSpec spec = TuningSpec.builder().positionBandwidthHz(40).build();
         List<PlantCase> three = new ArrayList<>();

@@ -22,7 +22,7 @@ class FitChecksTest {
 
     /** Seeded circular complex noise shaped like a velocity plant's 1/ω, so that |G|·ω is flat noise with random peaks. */
     static Frf pureNoise(long seed) {
-        double[] w = FrequencyGrid.logHz(5, 2000, 400);
+        double[] w = FrequencyGrid.logSpacedRadPerS(5, 2000, 400);
         Random r = new Random(seed);
         double[] re = new double[w.length], im = new double[w.length];
         for (int i = 0; i < w.length; i++) {
@@ -88,7 +88,7 @@ class FitChecksTest {
         TransferFunction base = TransferFunction.continuous(new double[] {KT}, new double[] {5e-4, 1e-2});
         double w1 = 2 * Math.PI * 20, w2 = 2 * Math.PI * 40;
         TransferFunction leadLag = TransferFunction.continuous(new double[] {1 / w1, 1}, new double[] {1 / w2, 1});
-        RigidBodyFit f = ModelFit.rigidBody(noisy(base.times(leadLag), FrequencyGrid.logHz(2, 500, 300), 0.01, 5), FitOptions.velocity(KT));
+        RigidBodyFit f = ModelFit.rigidBody(noisy(base.times(leadLag), FrequencyGrid.logSpacedRadPerS(2, 500, 300), 0.01, 5), FitOptions.velocity(KT));
         FitResult r = f.fit();
         ParameterEstimate b = r.parameter("viscous friction");
         assertTrue(b.high95() / b.low95() < 1.1, "the interval looks tight: " + b);
@@ -96,7 +96,7 @@ class FitChecksTest {
         assertEquals(Set.of("inertia", "viscous friction"), flagged(r, FitWarning.Kind.BAND_DEPENDENT), r.toString());
         assertEquals(2, r.warnings().size(), "one warning per parameter: " + r);
         // the same fit on data of its own model: usable, no warning
-        RigidBodyFit own = ModelFit.rigidBody(noisy(base, FrequencyGrid.logHz(2, 500, 300), 0.01, 5), FitOptions.velocity(KT));
+        RigidBodyFit own = ModelFit.rigidBody(noisy(base, FrequencyGrid.logSpacedRadPerS(2, 500, 300), 0.01, 5), FitOptions.velocity(KT));
         assertTrue(own.fit().isUsable(), own.toString());
     }
 
