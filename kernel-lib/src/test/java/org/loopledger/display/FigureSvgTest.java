@@ -27,7 +27,7 @@ class FigureSvgTest {
     private static final Pattern NUMBER = Pattern.compile("-?(?:\\d+\\.?\\d*|\\.\\d+)(?:[eE][-+]?\\d+)?");
 
     static Figure bode() {
-        double[] w = FrequencyGrid.logHz(1, 4000, 2000);
+        double[] w = FrequencyGrid.logSpacedRadPerS(1, 4000, 2000);
         return BodePlot.create().title("Two-mass axis & a lag")
                 .add("two-mass", FrfRendererTest.twoMass())
                 .add("lag", Frf.ofModel(TransferFunction.continuous(new double[] {1e4}, new double[] {1, 100}), w))

@@ -46,14 +46,14 @@ public final class FigureBench {
     public static void main(String[] args) throws Exception { System.exit(run(System.out, Path.of("datasets/gantry-x-empty.csv"), "/usr/bin/python3")); }
 
     public static int run(PrintStream out, Path log, String python) throws IOException, InterruptedException {
-        double[] hz = FrequencyGrid.logHz(2, 7000, 2000);
+        double[] hz = FrequencyGrid.logSpacedRadPerS(2, 7000, 2000); // rad/s, turned into Hz below
         for (int i = 0; i < hz.length; i++) hz[i] /= 2 * Math.PI;
         List<double[][]> bode = new ArrayList<>(); // per curve: hz, magDb, phaseDeg
         List<Frf> frfs = new ArrayList<>();
         double[][] cases = {{2e-4, 180, 260}, {2.5e-4, 150, 230}, {3e-4, 130, 210}};
         SplittableRandom rnd = new SplittableRandom(11);
         for (double[] c : cases) {
-            Frf model = Frf.ofModel(twoMass(c[0], c[1], c[2]), FrequencyGrid.logHz(2, 7000, 2000));
+            Frf model = Frf.ofModel(twoMass(c[0], c[1], c[2]), FrequencyGrid.logSpacedRadPerS(2, 7000, 2000));
             double[] re = model.real(), im = model.imag();
             for (int i = 0; i < re.length; i++) {
                 double g = 1 + 0.03 * (rnd.nextDouble() - 0.5), p = 0.03 * (rnd.nextDouble() - 0.5);
