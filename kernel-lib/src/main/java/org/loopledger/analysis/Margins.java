@@ -134,6 +134,18 @@ public final class Margins {
             }
         }
 
+        // a phase crossover where |L| is below 1e-12 (gain margin above 240 dB) is no margin: no gain change reaches it, and
+        // there the phase is set by rounding (a ZOH double integrator and a Tustin low-pass put zeros at z = -1 that the
+        // root finder returns split by 1e-7, on both sides of the unit circle, so L near Nyquist wanders around the origin)
+        int negligible = 0;
+        for (var it = phase.iterator(); it.hasNext(); ) {
+            if (it.next().magnitude() < NEGLIGIBLE_LOOP_GAIN) { it.remove(); negligible++; }
+        }
+        if (negligible > 0) {
+            final int dropped = negligible;
+            warn.add(() -> dropped + " phase crossover(s) where |L| < 1e-12 (gain margin above 240 dB, phase set by rounding) left out");
+        }
+
         // closed-loop peaks and bandwidth
         LoopScan.Extremum s = LoopScan.peak(l, LoopScan.Closed.SENSITIVITY);
         LoopScan.Extremum t = LoopScan.peak(l, LoopScan.Closed.COMPLEMENTARY);
@@ -197,6 +209,9 @@ public final class Margins {
         }
         return new Margins(source, l, gain, phase, ms, mt, bw, warn);
     }
+
+    /** |L| under which a phase crossover is not reported (a gain margin of 240 dB). */
+    public static final double NEGLIGIBLE_LOOP_GAIN = 1e-12;
 
     private static Bandwidth bandwidth(LoopResponse l) { return bandwidth(l, Bandwidth.HALF_POWER_DB); }
 
