@@ -134,6 +134,18 @@ public final class Margins {
             }
         }
 
+        // a phase crossover where |L| is below 1e-12 (gain margin above 240 dB) is no margin: no gain change reaches it, and
+        // there the phase is set by rounding (a ZOH double integrator and a Tustin low-pass put zeros at z = -1 that the
+        // root finder returns split by 1e-7, on both sides of the unit circle, so L near Nyquist wanders around the origin)
+        int negligible = 0;
+        for (var it = phase.iterator(); it.hasNext(); ) {
+            if (it.next().magnitude() < NEGLIGIBLE_LOOP_GAIN) { it.remove(); negligible++; }
+        }
+        if (negligible > 0) {
+            final int dropped = negligible;
+            warn.add(() -> dropped + " phase crossover(s) where |L| < 1e-12 (gain margin above 240 dB, phase set by rounding) left out");
+        }
+
         // closed-loop peaks and bandwidth
         LoopScan.Extremum s = LoopScan.peak(l, LoopScan.Closed.SENSITIVITY);
         LoopScan.Extremum t = LoopScan.peak(l, LoopScan.Closed.COMPLEMENTARY);
@@ -199,29 +211,44 @@ public final class Margins {
         return new Margins(source, l, gain, phase, ms, mt, bw, warn);
     }
 
-    private static Bandwidth bandwidth(LoopResponse l) {
+    /** |L| under which a phase crossover is not reported (a gain margin of 240 dB). */
+    public static final double NEGLIGIBLE_LOOP_GAIN = 1e-12;
+
+    private static Bandwidth bandwidth(LoopResponse l) { return bandwidth(l, Bandwidth.HALF_POWER_DB); }
+
+    /**
+     * The first frequency where |T| falls {@code -thresholdDb} dB below its low-frequency value (thresholdDb &lt; 0;
+     * {@link Bandwidth#HALF_POWER_DB} is the usual -3 dB point |T(0)|/√2). See {@link Bandwidth#of(TransferFunction, double)}.
+     */
+    static Bandwidth bandwidth(LoopResponse l, double thresholdDb) {
+        if (!(thresholdDb < 0) || Double.isInfinite(thresholdDb)) {
+            throw new IllegalArgumentException("bandwidth threshold must be a finite negative number of dB (-3 for the usual bandwidth, -6 for half amplitude), got "
+                    + thresholdDb + " dB");
+        }
+        String level = Math.abs(thresholdDb - Bandwidth.HALF_POWER_DB) < 1e-12 ? "-3 dB" : Units.formatDb(thresholdDb);
         int n = l.netIntegrators();
         double ref;
         String note = "";
         if (n >= 1) {
             ref = 1;
         } else if (n < 0) {
-            return new Bandwidth(OptionalDouble.empty(), 0, "T(0) = 0 (the loop has a zero at DC): no low-frequency reference");
+            return new Bandwidth(OptionalDouble.empty(), 0, "T(0) = 0 (the loop has a zero at DC): no low-frequency reference", thresholdDb);
         } else if (l.model().isPresent()) {
             double dc = l.model().get().withoutDelay().dcGain();
-            if (1 + dc == 0) return new Bandwidth(OptionalDouble.empty(), Double.POSITIVE_INFINITY, "1 + L(0) = 0: T(0) is infinite");
+            if (1 + dc == 0) return new Bandwidth(OptionalDouble.empty(), Double.POSITIVE_INFINITY, "1 + L(0) = 0: T(0) is infinite", thresholdDb);
             ref = Math.abs(dc / (1 + dc));
         } else {
             ref = Math.sqrt(LoopScan.closedSq(LoopScan.Closed.COMPLEMENTARY, l.re(0), l.im(0)));
             note = "reference |T| = " + Units.g4(ref) + " taken at the lowest measured frequency";
         }
-        if (ref == 0) return new Bandwidth(OptionalDouble.empty(), 0, "T(0) = 0: no low-frequency reference");
-        double w = LoopScan.firstBelow(l, ref / Math.sqrt(2));
+        if (ref == 0) return new Bandwidth(OptionalDouble.empty(), 0, "T(0) = 0: no low-frequency reference", thresholdDb);
+        double ratio = thresholdDb == Bandwidth.HALF_POWER_DB ? 1 / Math.sqrt(2) : Units.dbToRatio(thresholdDb);
+        double w = LoopScan.firstBelow(l, ref * ratio);
         if (w < 0) {
-            return new Bandwidth(OptionalDouble.empty(), ref, join(note, "|T| already below -3 dB at the lowest frequency " + Units.formatRadPerSAsHz(l.lowRadPerS())));
+            return new Bandwidth(OptionalDouble.empty(), ref, join(note, "|T| already below " + level + " at the lowest frequency " + Units.formatRadPerSAsHz(l.lowRadPerS())), thresholdDb);
         }
-        if (Double.isNaN(w)) return new Bandwidth(OptionalDouble.empty(), ref, join(note, "|T| stays above -3 dB up to " + Units.formatRadPerSAsHz(l.highRadPerS())));
-        return new Bandwidth(OptionalDouble.of(w), ref, note);
+        if (Double.isNaN(w)) return new Bandwidth(OptionalDouble.empty(), ref, join(note, "|T| stays above " + level + " up to " + Units.formatRadPerSAsHz(l.highRadPerS())), thresholdDb);
+        return new Bandwidth(OptionalDouble.of(w), ref, note, thresholdDb);
     }
 
     /** Number of neighbours closer than 5 % in frequency. */

@@ -45,6 +45,28 @@ public record SpecReport(List<Row> rows, List<String> warnings, String title) {
         }
     }
 
+    /**
+     * One report from several (a frequency-domain {@link Spec} report and a time-domain one, for example), rows in the
+     * given order; a row of a titled part is prefixed with that title ("velocity loop: phase margin"), warnings likewise.
+     */
+    public static SpecReport combined(String title, SpecReport... parts) {
+        if (parts.length == 0) throw new IllegalArgumentException("combine at least one report");
+        List<Row> rows = new java.util.ArrayList<>();
+        List<String> warnings = new java.util.ArrayList<>();
+        for (SpecReport p : parts) {
+            java.util.Objects.requireNonNull(p, "report");
+            String prefix = p.title.isEmpty() ? "" : p.title + ": ";
+            for (Row r : p.rows) {
+                rows.add(new Row(prefix + r.requirement(), r.limit(), r.achieved(), r.frequencyHz(), r.pass(), r.achievedValue(), r.limitValue()));
+            }
+            for (String w : p.warnings) warnings.add(prefix + w);
+        }
+        return new SpecReport(rows, warnings, title);
+    }
+
+    /** This report and {@code other} as one untitled report (see {@link #combined}). */
+    public SpecReport and(SpecReport other) { return combined("", this, other); }
+
     /** True when every requirement passes. */
     public boolean passed() { return rows.stream().allMatch(Row::pass); }
 

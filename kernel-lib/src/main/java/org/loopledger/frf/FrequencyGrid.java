@@ -33,6 +33,28 @@ public final class FrequencyGrid {
         return logRadPerS(Units.hzToRadPerS(fromHz), Units.hzToRadPerS(toHz), n);
     }
 
+    /** The top of {@link #logSpacedRadPerSBelowNyquist}, as a fraction of the Nyquist frequency. */
+    public static final double BELOW_NYQUIST = 0.999;
+
+    /**
+     * A grid for a sampled loop: {@code n} log-spaced points from {@code loHz} up to just below the Nyquist frequency
+     * 1/(2T), at {@value #BELOW_NYQUIST} of it, <b>returned in rad/s</b>. Stopping short of Nyquist matters: a Tustin
+     * low-pass (or any filter with zeros at z = -1) is exactly zero there, and a measured-loop analysis refuses a
+     * curve with an exactly zero point; at 0.999 of Nyquist a double zero at z = -1 still leaves
+     * |1 + e<sup>jωT</sup>|² = 4cos²(0.999π/2) ≈ 1e-5 of the curve (-100 dB), finite and non-zero.
+     */
+    public static double[] logSpacedRadPerSBelowNyquist(double loHz, double sampleTimeS, int n) {
+        if (!(sampleTimeS > 0) || Double.isInfinite(sampleTimeS)) {
+            throw new IllegalArgumentException("sample time must be a finite positive number of seconds, got " + sampleTimeS);
+        }
+        double top = BELOW_NYQUIST * 0.5 / sampleTimeS;
+        if (!(loHz < top)) {
+            throw new IllegalArgumentException("the grid's low end " + loHz + " Hz must lie below " + Units.formatHz(top)
+                    + " (just below the Nyquist frequency " + Units.formatHz(0.5 / sampleTimeS) + ")");
+        }
+        return logSpacedRadPerS(loHz, top, n);
+    }
+
     /**
      * {@code n} points from {@code loHz} to {@code hiHz} inclusive, equally spaced in log f, <b>returned
      * in Hz</b> (the same grid as {@link #logSpacedRadPerS}, divided by 2π; end points exact).
