@@ -52,7 +52,7 @@ class NyquistEdgeTest {
         for (PhaseCrossover p : m.phaseCrossovers()) assertTrue(p.magnitude() >= Margins.NEGLIGIBLE_LOOP_GAIN, p.toString());
         assertEquals(1, m.phaseCrossovers().size(), m.toString());
         // a grid up to Nyquist itself: the Tustin low-pass is exactly zero there, and a measured loop refuses the curve
-        Frf toNyquist = Frf.ofModel(lowPass(), FrequencyGrid.logHz(1, 0.5 / TS, 2000));
+        Frf toNyquist = Frf.ofModel(lowPass(), FrequencyGrid.logSpacedRadPerS(1, 0.5 / TS, 2000));
         var e = assertThrows(IllegalArgumentException.class, () -> MeasuredLoop.ofSampled(toNyquist, TS));
         assertTrue(e.getMessage().contains("non-zero"), e.getMessage());
     }
