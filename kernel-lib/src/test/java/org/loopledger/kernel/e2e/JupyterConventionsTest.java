@@ -1,5 +1,6 @@
 package org.loopledger.kernel.e2e;
 
+import com.google.gson.JsonElement;
 import com.google.gson.JsonObject;
 import org.junit.jupiter.api.BeforeAll;
 import org.junit.jupiter.api.Test;
@@ -7,6 +8,8 @@ import org.junit.jupiter.api.io.TempDir;
 import org.loopledger.testing.PythonOracle;
 
 import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
 import java.util.Map;
 
 import static org.junit.jupiter.api.Assertions.*;
@@ -39,5 +42,22 @@ class JupyterConventionsTest {
         assertEquals("ok", s.getAsJsonObject("reply").get("status").getAsString(), s::toString);
         assertEquals("dict", s.get("python_type").getAsString(), () -> "jupyter_client decoded " + s.get("value"));
         assertTrue(s.get("value").isJsonObject() && s.getAsJsonObject("value").size() > 0, s::toString);
+    }
+
+    /** Messaging spec 5.3, execute_request stop_on_error (default true), as ipykernel aborts its queue. */
+    @Test
+    void queuedRequestsAreAbortedAfterAnError() {
+        JsonObject s = step("stop_on_error");
+        List<String> statuses = new ArrayList<>();
+        for (JsonElement e : s.getAsJsonArray("statuses")) statuses.add(e.getAsString());
+        assertEquals(List.of("error", "aborted", "aborted"), statuses);
+        // the aborted cells did not run: the variable they would have changed is unchanged
+        JsonObject after = s.getAsJsonObject("after");
+        String shown = null;
+        for (JsonElement e : after.getAsJsonArray("iopub")) {
+            JsonObject m = e.getAsJsonObject();
+            if (m.get("type").getAsString().equals("execute_result")) shown = m.getAsJsonObject("content").getAsJsonObject("data").get("text/plain").getAsString();
+        }
+        assertEquals("0", shown, after::toString);
     }
 }

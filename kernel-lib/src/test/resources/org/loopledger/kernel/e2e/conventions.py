@@ -46,9 +46,20 @@ def json_mime():
     value = shown[0]["data"]["application/vnd.loopledger.plot-data+json"]
     return {"python_type": type(value).__name__, "value": value, "reply": r["reply"]}
 
+def stop_on_error():
+    run("int sideEffect = 0;")
+    # three requests sent without waiting (as Run All does); the first fails
+    ids = [kc.execute("int boom = 1 / 0;"), kc.execute("sideEffect += 1;"), kc.execute("sideEffect += 10;")]
+    replies = [reply_for(i)["content"] for i in ids]
+    for i in ids:
+        iopub_until_idle(i)
+    after = run("sideEffect")
+    return {"statuses": [r["status"] for r in replies], "after": after}
+
 try:
     kc.wait_for_ready(timeout=90)
     step("json_mime", json_mime)
+    step("stop_on_error", stop_on_error)
 finally:
     try:
         kc.stop_channels()
