@@ -41,7 +41,7 @@ public final class KernelServer implements AutoCloseable {
 
     /** Binds the sockets and starts serving; the session starts in the background meanwhile. */
     public static KernelServer start(ConnectionInfo connection, SessionOptions options) {
-        ParentWatch.start().ifPresent(pid -> KernelLog.info("the kernel ends when process " + pid + " ends"));
+        ParentWatch.start().ifPresent(pid -> KernelLog.debug("the kernel ends when process " + pid + " ends"));
         KernelServer k = new KernelServer(connection, options);
         k.bindAndServe();
         return k;
@@ -61,7 +61,7 @@ public final class KernelServer implements AutoCloseable {
         startThread("loopledger-control", () -> serve(new Channel("control", controlSocket, codec), handler, replies));
         startThread("loopledger-heartbeat", () -> heartbeat(hbSocket));
         installInterruptSignal();
-        KernelLog.info("serving " + connection);
+        KernelLog.debug("serving " + connection);
     }
 
     private ZMQ.Socket bind(SocketType type, int port) {
