@@ -60,4 +60,12 @@ class JupyterConventionsTest {
         }
         assertEquals("0", shown, after::toString);
     }
+
+    /** Reading System.in fails with a message naming the problem and the fix, instead of a silent end of input (-1). */
+    @Test
+    void readingStandardInputFailsClearly() {
+        JsonObject r = step("stdin_refused").getAsJsonObject("reply");
+        assertEquals("error", r.get("status").getAsString(), r::toString);
+        assertTrue(r.get("evalue").getAsString().contains("standard input is not available"), r::toString);
+    }
 }

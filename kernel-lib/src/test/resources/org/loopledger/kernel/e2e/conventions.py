@@ -56,10 +56,14 @@ def stop_on_error():
     after = run("sideEffect")
     return {"statuses": [r["status"] for r in replies], "after": after}
 
+def stdin_refused():
+    return run("System.in.read()", allow_stdin=False)
+
 try:
     kc.wait_for_ready(timeout=90)
     step("json_mime", json_mime)
     step("stop_on_error", stop_on_error)
+    step("stdin_refused", stdin_refused)
 finally:
     try:
         kc.stop_channels()
