@@ -40,7 +40,16 @@ final class Channel {
      * whose frames add up to more than {@link #MAX_MESSAGE_BYTES} is read to its end and dropped unverified.
      */
     Optional<Message> receive() {
-        byte[] first = socket.recv(0);
+        return receive(0);
+    }
+
+    /** {@link #receive()} without waiting: empty at once when no message is queued. */
+    Optional<Message> receiveQueued() {
+        return receive(ZMQ.DONTWAIT);
+    }
+
+    private Optional<Message> receive(int firstFlags) {
+        byte[] first = socket.recv(firstFlags);
         if (first == null) return Optional.empty();
         List<byte[]> frames = new ArrayList<>();
         frames.add(first);

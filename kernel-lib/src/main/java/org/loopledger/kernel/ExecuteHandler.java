@@ -2,6 +2,9 @@ package org.loopledger.kernel;
 
 import com.google.gson.JsonArray;
 import com.google.gson.JsonObject;
+import com.google.gson.JsonParseException;
+import com.google.gson.JsonParser;
+import org.loopledger.display.MimeBundle;
 import org.loopledger.kernel.protocol.Message;
 import org.loopledger.kernel.session.CellOutput;
 import org.loopledger.kernel.session.CellResult;
@@ -62,14 +65,14 @@ final class ExecuteHandler {
             iopub.stream(parent, s.name(), s.text());
         } else if (o instanceof CellOutput.Display d) {
             JsonObject c = new JsonObject();
-            c.add("data", d.bundle().toJsonObject());
+            c.add("data", wireData(d.bundle()));
             c.add("metadata", new JsonObject());
             c.add("transient", new JsonObject());
             iopub.publish(parent, "display_data", c);
         } else if (o instanceof CellOutput.Result r) {
             JsonObject c = new JsonObject();
             c.addProperty("execution_count", count);
-            c.add("data", r.bundle().toJsonObject());
+            c.add("data", wireData(r.bundle()));
             c.add("metadata", new JsonObject());
             iopub.publish(parent, "execute_result", c);
         } else if (o instanceof CellOutput.Error e) {
@@ -79,6 +82,27 @@ final class ExecuteHandler {
             c.add("traceback", lines(e));
             iopub.publish(parent, "error", c);
         }
+    }
+
+    /**
+     * A bundle as the {@code data} of {@code display_data} / {@code execute_result}: JSON MIME types
+     * ({@code application/json}, {@code application/...+json}) as JSON values, as the messaging
+     * specification asks and nbformat stores them; a value that is not valid JSON stays a string.
+     */
+    static JsonObject wireData(MimeBundle bundle) {
+        JsonObject o = new JsonObject();
+        bundle.data().forEach((mime, value) -> {
+            if (mime.equals("application/json") || (mime.startsWith("application/") && mime.endsWith("+json"))) {
+                try {
+                    o.add(mime, JsonParser.parseString(value));
+                    return;
+                } catch (JsonParseException e) {
+                    KernelLog.warn(mime + " output is not valid JSON; sent as a string: " + e.getMessage());
+                }
+            }
+            o.addProperty(mime, value);
+        });
+        return o;
     }
 
     private static JsonArray lines(CellOutput.Error e) {

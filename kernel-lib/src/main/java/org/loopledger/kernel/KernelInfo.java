@@ -3,6 +3,7 @@ package org.loopledger.kernel;
 import com.google.gson.JsonArray;
 import com.google.gson.JsonObject;
 import org.loopledger.kernel.protocol.Headers;
+import org.loopledger.notebook.KernelIdentity;
 
 /** The {@code kernel_info_reply} content (Jupyter messaging specification 5.3). */
 final class KernelInfo {
@@ -16,19 +17,12 @@ final class KernelInfo {
     }
 
     static JsonObject content() {
-        JsonObject lang = new JsonObject();
-        lang.addProperty("name", "java");
-        lang.addProperty("version", Runtime.version().feature() + "." + Runtime.version().interim() + "." + Runtime.version().update());
-        lang.addProperty("mimetype", "text/x-java-source");
-        lang.addProperty("file_extension", ".java");
-        lang.addProperty("pygments_lexer", "java");
-        lang.addProperty("codemirror_mode", "text/x-java");
         JsonObject c = new JsonObject();
         c.addProperty("status", "ok");
         c.addProperty("protocol_version", Headers.PROTOCOL_VERSION);
         c.addProperty("implementation", IMPLEMENTATION);
         c.addProperty("implementation_version", version());
-        c.add("language_info", lang);
+        c.add("language_info", KernelIdentity.languageInfo());
         c.addProperty("banner", "Loopledger " + version() + " on Java " + Runtime.version() + " (JShell). display(...), markdown(...) and the library's packages are imported.");
         c.add("help_links", new JsonArray());
         c.addProperty("debugger", false);

@@ -41,7 +41,7 @@ public final class KernelServer implements AutoCloseable {
 
     /** Binds the sockets and starts serving; the session starts in the background meanwhile. */
     public static KernelServer start(ConnectionInfo connection, SessionOptions options) {
-        ParentWatch.start().ifPresent(pid -> KernelLog.info("the kernel ends when process " + pid + " ends"));
+        ParentWatch.start().ifPresent(pid -> KernelLog.debug("the kernel ends when process " + pid + " ends"));
         KernelServer k = new KernelServer(connection, options);
         k.bindAndServe();
         return k;
@@ -61,7 +61,7 @@ public final class KernelServer implements AutoCloseable {
         startThread("loopledger-control", () -> serve(new Channel("control", controlSocket, codec), handler, replies));
         startThread("loopledger-heartbeat", () -> heartbeat(hbSocket));
         installInterruptSignal();
-        KernelLog.info("serving " + connection);
+        KernelLog.debug("serving " + connection);
     }
 
     private ZMQ.Socket bind(SocketType type, int port) {
@@ -109,12 +109,50 @@ public final class KernelServer implements AutoCloseable {
             Message request = next.get();
             try {
                 iopub.status(request.header(), "busy");
-                handler.handle(request, channel.name()).ifPresent(r -> channel.send(replies.reply(request, r.type(), r.content())));
+                Optional<RequestHandler.Reply> reply = handler.handle(request, channel.name());
+                reply.ifPresent(r -> channel.send(replies.reply(request, r.type(), r.content())));
                 iopub.status(request.header(), "idle");
+                if ("shell".equals(channel.name()) && reply.isPresent() && stopsOnError(request, reply.get())) abortQueued(channel, handler, replies);
             } catch (Throwable e) {
                 if (!running) return;
                 warnSafely("failed to answer " + request + " on " + channel.name() + ": ", e);
             }
+        }
+    }
+
+    /**
+     * An execute request that failed with {@code stop_on_error} (true unless the request says otherwise) and
+     * not {@code silent} aborts the execution queue (messaging specification 5.3, {@code execute_request}),
+     * as ipykernel does: Run All stops at the first failing cell.
+     */
+    private static boolean stopsOnError(Message request, RequestHandler.Reply reply) {
+        if (!"execute_request".equals(request.type())) return false;
+        if (!reply.content().has("status") || !"error".equals(reply.content().get("status").getAsString())) return false;
+        var c = request.content();
+        boolean silent = c.has("silent") && c.get("silent").isJsonPrimitive() && c.get("silent").getAsBoolean();
+        boolean stop = !c.has("stop_on_error") || !c.get("stop_on_error").isJsonPrimitive() || c.get("stop_on_error").getAsBoolean();
+        return stop && !silent;
+    }
+
+    /**
+     * Answers every execute request already queued on the shell socket with {@code status: aborted} without
+     * running it; other requests queued meanwhile are answered as usual. Ends when nothing more is queued
+     * (ipykernel's default {@code stop_on_error_timeout} of 0).
+     */
+    private void abortQueued(Channel channel, RequestHandler handler, Replies replies) {
+        while (running) {
+            Optional<Message> next = channel.receiveQueued();
+            if (next.isEmpty()) return;
+            Message queued = next.get();
+            iopub.status(queued.header(), "busy");
+            if ("execute_request".equals(queued.type())) {
+                com.google.gson.JsonObject aborted = new com.google.gson.JsonObject();
+                aborted.addProperty("status", "aborted");
+                channel.send(replies.reply(queued, "execute_reply", aborted));
+            } else {
+                handler.handle(queued, channel.name()).ifPresent(r -> channel.send(replies.reply(queued, r.type(), r.content())));
+            }
+            iopub.status(queued.header(), "idle");
         }
     }
 

@@ -3,6 +3,7 @@ package org.loopledger.kernel;
 import com.google.gson.GsonBuilder;
 import com.google.gson.JsonArray;
 import com.google.gson.JsonObject;
+import org.loopledger.notebook.KernelIdentity;
 
 import javax.imageio.ImageIO;
 import java.awt.BasicStroke;
@@ -24,8 +25,8 @@ import java.util.List;
  * (a SIGINT would end a JVM), and two logo sizes drawn here.
  */
 public final class Kernelspec {
-    public static final String NAME = "loopledger";
-    public static final String DISPLAY_NAME = "Java (Loopledger)";
+    public static final String NAME = KernelIdentity.NAME;
+    public static final String DISPLAY_NAME = KernelIdentity.DISPLAY_NAME;
 
     private Kernelspec() {}
 
@@ -42,7 +43,7 @@ public final class Kernelspec {
         argv.forEach(a::add);
         spec.add("argv", a);
         spec.addProperty("display_name", DISPLAY_NAME);
-        spec.addProperty("language", "java");
+        spec.addProperty("language", KernelIdentity.LANGUAGE);
         spec.addProperty("interrupt_mode", "message");
         spec.add("env", new JsonObject());
         JsonObject metadata = new JsonObject();

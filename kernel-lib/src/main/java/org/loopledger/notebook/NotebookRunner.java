@@ -223,6 +223,9 @@ public final class NotebookRunner {
     static String withRunMetadata(String metadataJson, String libraryVersion, String runDate, List<RecordInfo.DatasetDigest> datasets,
                                   List<CellFailure> failures) {
         JsonObject meta = JsonParser.parseString(metadataJson).getAsJsonObject();
+        // What Jupyter writes when it saves the notebook on our kernel, so a run and a save agree.
+        meta.add("kernelspec", KernelIdentity.kernelspec());
+        meta.add("language_info", KernelIdentity.languageInfo());
         JsonObject ll = new JsonObject();
         ll.addProperty("library_version", libraryVersion);
         ll.addProperty("run_date", runDate);

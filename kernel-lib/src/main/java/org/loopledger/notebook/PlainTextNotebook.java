@@ -58,8 +58,7 @@ public final class PlainTextNotebook {
     private static final String ESCAPE = "//\\";
     private static final String METADATA_KEY = "metadata ";
     /** The notebook metadata of a file that states none: the Loopledger kernel. */
-    static final String DEFAULT_METADATA = "{\"kernelspec\":{\"display_name\":\"Loopledger (Java)\",\"language\":\"java\",\"name\":\"loopledger\"},"
-            + "\"language_info\":{\"name\":\"java\"}}";
+    static final String DEFAULT_METADATA = KernelIdentity.notebookMetadata().toString();
 
     /** The notebook as plain text (ends with a newline); outputs, attachments and the run record are left out. */
     public static String format(Notebook nb) {

@@ -51,6 +51,17 @@ public final class CellSession implements AutoCloseable {
         return s;
     }
 
+    /** What a cell reading {@code System.in} is told: no keyboard here (was a silent end of input). */
+    static final String NO_STDIN_MESSAGE = "standard input is not available to Loopledger cells (no input_request is sent; "
+            + "loopledger run has no keyboard either): put the value in the cell, e.g. double gain = 1.5;";
+
+    private static final InputStream NO_STANDARD_INPUT = new InputStream() {
+        @Override
+        public int read() throws java.io.IOException {
+            throw new java.io.IOException(NO_STDIN_MESSAGE);
+        }
+    };
+
     private void boot() {
         AgentLauncher launcher = new AgentLauncher(options.classPath(), options.agentVmOptions(),
                 new DisplayFrameSink(b -> listener.output(new CellOutput.Display(b))));
@@ -59,7 +70,7 @@ public final class CellSession implements AutoCloseable {
         shell = JShell.builder()
                 .executionEngine(launcher, Map.of())
                 .compilerOptions("--class-path", options.classPath())
-                .in(InputStream.nullInputStream())
+                .in(NO_STANDARD_INPUT)
                 .out(out)
                 .err(err)
                 .build();

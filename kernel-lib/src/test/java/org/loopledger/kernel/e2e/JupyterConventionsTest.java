@@ -1,0 +1,71 @@
+package org.loopledger.kernel.e2e;
+
+import com.google.gson.JsonElement;
+import com.google.gson.JsonObject;
+import org.junit.jupiter.api.BeforeAll;
+import org.junit.jupiter.api.Test;
+import org.junit.jupiter.api.io.TempDir;
+import org.loopledger.testing.PythonOracle;
+
+import java.nio.file.Path;
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+
+import static org.junit.jupiter.api.Assertions.*;
+
+/**
+ * Jupyter conventions (issue 11), through Debian's jupyter_client (the outside reference) and the
+ * messaging specification 5.3; one kernel session runs every step (conventions.py).
+ */
+class JupyterConventionsTest {
+    static JsonObject record;
+
+    @BeforeAll
+    static void runSession(@TempDir Path dir) throws Exception {
+        PythonOracle.require("jupyter_client", "zmq");
+        Path jupyterPath = TestKernelspec.install(dir);
+        record = PythonOracle.run(TestKernelspec.script("conventions.py"), Map.of("jupyter_path", jupyterPath.toString())).getAsJsonObject();
+    }
+
+    static JsonObject step(String name) {
+        JsonObject o = record.getAsJsonObject(name);
+        assertNotNull(o, "step " + name + " missing");
+        assertFalse(o.has("exception"), () -> name + " failed in Python: " + o.get("exception").getAsString());
+        return o;
+    }
+
+    /** Messaging spec 5.3, display_data: "JSON data ... is sent as a JSON object, not a string" for JSON MIME types. */
+    @Test
+    void jsonMimeTypesAreJsonObjects() {
+        JsonObject s = step("json_mime");
+        assertEquals("ok", s.getAsJsonObject("reply").get("status").getAsString(), s::toString);
+        assertEquals("dict", s.get("python_type").getAsString(), () -> "jupyter_client decoded " + s.get("value"));
+        assertTrue(s.get("value").isJsonObject() && s.getAsJsonObject("value").size() > 0, s::toString);
+    }
+
+    /** Messaging spec 5.3, execute_request stop_on_error (default true), as ipykernel aborts its queue. */
+    @Test
+    void queuedRequestsAreAbortedAfterAnError() {
+        JsonObject s = step("stop_on_error");
+        List<String> statuses = new ArrayList<>();
+        for (JsonElement e : s.getAsJsonArray("statuses")) statuses.add(e.getAsString());
+        assertEquals(List.of("error", "aborted", "aborted"), statuses);
+        // the aborted cells did not run: the variable they would have changed is unchanged
+        JsonObject after = s.getAsJsonObject("after");
+        String shown = null;
+        for (JsonElement e : after.getAsJsonArray("iopub")) {
+            JsonObject m = e.getAsJsonObject();
+            if (m.get("type").getAsString().equals("execute_result")) shown = m.getAsJsonObject("content").getAsJsonObject("data").get("text/plain").getAsString();
+        }
+        assertEquals("0", shown, after::toString);
+    }
+
+    /** Reading System.in fails with a message naming the problem and the fix, instead of a silent end of input (-1). */
+    @Test
+    void readingStandardInputFailsClearly() {
+        JsonObject r = step("stdin_refused").getAsJsonObject("reply");
+        assertEquals("error", r.get("status").getAsString(), r::toString);
+        assertTrue(r.get("evalue").getAsString().contains("standard input is not available"), r::toString);
+    }
+}
