@@ -41,7 +41,7 @@ def step(name, fn):
 
 def json_mime():
     r = run("display(BodePlot.create().add(\"lag\", Frf.ofModel(TransferFunction.continuous(new double[] {100}, new double[] {1, 100}), "
-            "FrequencyGrid.logHz(1, 1000, 50))).figure());")
+            "FrequencyGrid.logSpacedRadPerS(1, 1000, 50))).figure());")
     shown = [m["content"] for m in r["iopub"] if m["type"] == "display_data"]
     value = shown[0]["data"]["application/vnd.loopledger.plot-data+json"]
     return {"python_type": type(value).__name__, "value": value, "reply": r["reply"]}
