@@ -1,6 +1,12 @@
 package org.loopledger.frf;
 
+import org.apache.commons.math3.complex.Complex;
+import org.loopledger.lti.TransferFunction;
 import org.loopledger.lti.Units;
+
+import java.util.ArrayList;
+import java.util.Arrays;
+import java.util.List;
 
 /**
  * Logarithmically spaced frequency grids; each name says the unit it returns. {@link #logRadPerS} and
@@ -70,5 +76,72 @@ public final class FrequencyGrid {
         f[0] = loHz;
         f[n - 1] = hiHz;
         return f;
+    }
+
+    /** Points per decade of {@link #forModelRadPerS}. */
+    public static final int MODEL_POINTS_PER_DECADE = 100;
+
+    /** Damping ratio under which {@link #forModelRadPerS} inserts a root's natural frequency and a cluster around it. */
+    public static final double LIGHT_DAMPING = 0.5;
+
+    /**
+     * A grid in rad/s that shows a model's features, for plotting it without choosing a band. Continuous: from a
+     * hundredth of the lowest pole/zero natural frequency to a hundred times the highest (two decades either side;
+     * a delay τ counts as a feature at 1/τ; with no feature at all, 0.01 .. 100 rad/s). Sampled: from the same low end
+     * (roots mapped through s = ln(z)/T; at most a thousandth of Nyquist) up to {@link #BELOW_NYQUIST} of the Nyquist
+     * frequency, as {@link #logSpacedRadPerSBelowNyquist}. {@value #MODEL_POINTS_PER_DECADE} log-spaced points per
+     * decade, plus, for every root with damping ratio below {@value #LIGHT_DAMPING}, its natural frequency itself and
+     * points spaced ζ/4 in ln ω around it, so a lightly damped peak or notch is drawn at its true depth. Roots at the
+     * origin (z = 1) are no feature; for roots on the stability boundary (ζ = 0) the natural frequency itself, where
+     * the response is infinite, is left out.
+     */
+    public static double[] forModelRadPerS(TransferFunction g) {
+        boolean sampled = g.isDiscrete();
+        double ts = sampled ? g.sampleTimeS() : 0;
+        double top = sampled ? BELOW_NYQUIST * Math.PI / ts : Double.POSITIVE_INFINITY;
+        List<double[]> features = new ArrayList<>(); // {ωn rad/s, ζ}
+        List<Complex> roots = new ArrayList<>(g.poles());
+        roots.addAll(g.zeros());
+        for (Complex r : roots) {
+            Complex sr = r;
+            if (sampled) {
+                if (r.abs() == 0 || r.subtract(Complex.ONE).abs() <= 1e-9) continue;
+                sr = r.log().divide(ts);
+            } else if (r.abs() <= 1e-9) {
+                continue;
+            }
+            double wn = sr.abs();
+            if (!(wn > 0) || !Double.isFinite(wn)) continue;
+            features.add(new double[] {wn, Math.abs(-sr.getReal() / wn)});
+        }
+        if (g.hasDelay()) features.add(new double[] {1 / g.delayS(), 1});
+        double fmin = Double.POSITIVE_INFINITY, fmax = 0;
+        for (double[] f : features) { fmin = Math.min(fmin, f[0]); fmax = Math.max(fmax, f[0]); }
+        if (fmax == 0) { fmin = 1; fmax = 1; }
+        double lo, hi;
+        if (sampled) {
+            hi = top;
+            lo = Math.min(fmin / 100, hi / 1000);
+        } else {
+            lo = fmin / 100;
+            hi = fmax * 100;
+        }
+        int n = Math.max(2, (int) Math.ceil(Math.log10(hi / lo) * MODEL_POINTS_PER_DECADE) + 1);
+        double[] base = sampled ? logSpacedRadPerSBelowNyquist(Units.radPerSToHz(lo), ts, n) : logRadPerS(lo, hi, n);
+        List<Double> pts = new ArrayList<>();
+        for (double v : base) pts.add(v);
+        List<Double> onBoundary = new ArrayList<>();
+        for (double[] f : features) {
+            if (f[1] >= LIGHT_DAMPING) continue;
+            if (f[1] < 1e-9) { onBoundary.add(f[0]); continue; }
+            for (int k = -40; k <= 40; k++) pts.add(f[0] * Math.exp(k * f[1] / 4));
+        }
+        for (double wb : onBoundary) for (int k = 1; k <= 20; k++) { pts.add(wb * (1 - 1e-4 * k)); pts.add(wb * (1 + 1e-4 * k)); }
+        double[] a = pts.stream().mapToDouble(Double::doubleValue)
+                .filter(v -> v >= lo && v <= hi && onBoundary.stream().noneMatch(wb -> Math.abs(v - wb) <= 1e-6 * wb)).toArray();
+        Arrays.sort(a);
+        int k = 0;
+        for (int i = 0; i < a.length; i++) if (k == 0 || a[i] > a[k - 1] * (1 + 1e-12)) a[k++] = a[i];
+        return Arrays.copyOf(a, k);
     }
 }

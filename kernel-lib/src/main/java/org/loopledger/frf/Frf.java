@@ -329,6 +329,48 @@ public final class Frf {
         return new Frf(omegaRadPerS.clone(), r, m, c, u, computed);
     }
 
+    /**
+     * The value at one frequency in Hz, interpolated exactly as {@link #resampledTo} does (linear in log ω on
+     * log|G| and on the unwrapped phase); at a grid point, the stored value itself. Refuses frequencies outside
+     * the grid (no extrapolation).
+     */
+    public Complex atHz(double hz) {
+        if (!(hz > 0) || Double.isInfinite(hz)) {
+            throw new IllegalArgumentException("frequency " + hz + " Hz is not a finite positive number; give a frequency inside " + describeBand());
+        }
+        double w = Units.hzToRadPerS(hz);
+        int i = Arrays.binarySearch(omega, w);
+        if (i >= 0) return valueAt(i);
+        if (w < omega[0] * (1 - 1e-12) || w > omega[omega.length - 1] * (1 + 1e-12)) {
+            throw new IllegalArgumentException("frequency " + Units.formatHz(hz) + " lies outside the FRF's grid (" + describeBand()
+                    + "); an FRF is not extrapolated: ask for a frequency inside the grid or compute the FRF on a wider one");
+        }
+        Frf one = resampledTo(new double[] {w});
+        return one.valueAt(0);
+    }
+
+    /** |G| in dB at one frequency in Hz, interpolated as {@link #atHz}. */
+    public double magnitudeDbAtHz(double hz) {
+        Complex g = atHz(hz);
+        return Units.ratioToDb(Math.hypot(g.getReal(), g.getImaginary())); // as magnitude(): the same value at grid points
+    }
+
+    /**
+     * Phase in degrees at one frequency in Hz, on the same branch as {@link #phaseDegUnwrapped} (interpolated
+     * between the unwrapped phases of the neighbouring grid points; at a grid point, that point's unwrapped phase).
+     */
+    public double phaseDegAtHz(double hz) {
+        atHz(hz); // validates the frequency
+        double[] ph = phaseDegUnwrapped();
+        double w = Units.hzToRadPerS(hz);
+        int i = Arrays.binarySearch(omega, w);
+        if (i >= 0) return ph[i];
+        int k = Math.min(omega.length - 2, Math.max(0, -i - 2));
+        if (omega.length == 1) return ph[0];
+        double t = (Math.log(w) - Math.log(omega[k])) / (Math.log(omega[k + 1]) - Math.log(omega[k]));
+        return lerp(ph[k], ph[k + 1], Math.min(1, Math.max(0, t)));
+    }
+
     private static double lerp(double a, double b, double t) { return a + (b - a) * t; }
 
     private void requireSameGrid(Frf other, String what) {

@@ -1,7 +1,9 @@
 package org.loopledger.plot;
 
 import org.knowm.xchart.XYChart;
+import org.loopledger.frf.FrequencyGrid;
 import org.loopledger.frf.Frf;
+import org.loopledger.lti.TransferFunction;
 
 import java.util.ArrayList;
 import java.util.List;
@@ -29,6 +31,9 @@ public final class BodePlot {
     /** Shortcut: a Bode figure of one FRF. */
     public static Figure of(String label, Frf frf) { return create().add(label, frf).figure(); }
 
+    /** Shortcut: a Bode figure of one model, on the grid of {@link #add(String, TransferFunction)}. */
+    public static Figure of(String label, TransferFunction model) { return create().add(label, model).figure(); }
+
     public BodePlot title(String title) { this.title = title; return this; }
 
     /**
@@ -49,6 +54,16 @@ public final class BodePlot {
 
     /** Adds a curve. */
     public BodePlot add(String label, Frf frf) { curves.add(new Curve(label, frf)); return this; }
+
+    /**
+     * Adds a model's curve on a grid chosen from the model ({@link FrequencyGrid#forModelRadPerS}): two decades
+     * around its poles' and zeros' natural frequencies with every lightly damped one on the grid (continuous), or up
+     * to just below the Nyquist frequency (sampled).
+     */
+    public BodePlot add(String label, TransferFunction model) {
+        java.util.Objects.requireNonNull(model, "model");
+        return add(label, Frf.ofModel(model, FrequencyGrid.forModelRadPerS(model)));
+    }
 
     /** Adds a marker drawn on both panels at {@code hz}. */
     public BodePlot mark(String label, double hz, double magDb, double phaseDeg) {

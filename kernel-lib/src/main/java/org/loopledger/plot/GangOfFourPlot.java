@@ -1,6 +1,7 @@
 package org.loopledger.plot;
 
 import org.knowm.xchart.XYChart;
+import org.loopledger.analysis.GangOfFour;
 import org.loopledger.frf.Frf;
 
 import java.util.List;
@@ -11,6 +12,12 @@ import java.util.List;
  */
 public final class GangOfFourPlot {
     private GangOfFourPlot() {}
+
+    /** The four magnitudes of an analysed loop in one call: S, T, PS and CS on the analysis's own grid. */
+    public static Figure of(String title, GangOfFour gang) {
+        java.util.Objects.requireNonNull(gang, "gang (GangOfFour.of(plant, controller))");
+        return of(title, gang.sensitivity(), gang.complementarySensitivity(), gang.loadSensitivity(), gang.noiseSensitivity());
+    }
 
     public static Figure of(String title, Frf s, Frf t, Frf ps, Frf cs) {
         return Figure.grid(title, 2, List.of(

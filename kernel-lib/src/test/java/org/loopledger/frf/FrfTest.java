@@ -87,7 +87,7 @@ class FrfTest {
     void gridNamesStateTheReturnedUnit() {
         java.util.Set<String> names = new java.util.TreeSet<>();
         for (var m : FrequencyGrid.class.getDeclaredMethods()) if (java.lang.reflect.Modifier.isPublic(m.getModifiers())) names.add(m.getName());
-        assertEquals(java.util.Set.of("logRadPerS", "logSpacedHz", "logSpacedRadPerS", "logSpacedRadPerSBelowNyquist"), names);
+        assertEquals(java.util.Set.of("forModelRadPerS", "logRadPerS", "logSpacedHz", "logSpacedRadPerS", "logSpacedRadPerSBelowNyquist"), names);
         assertEquals(2 * Math.PI, FrequencyGrid.logSpacedRadPerS(1, 1000, 4)[0]);   // 1 Hz is 2π rad/s (common practice)
         assertEquals(1, FrequencyGrid.logSpacedHz(1, 1000, 4)[0]);
     }
