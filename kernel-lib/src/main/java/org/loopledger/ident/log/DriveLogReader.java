@@ -17,7 +17,7 @@ import java.util.stream.Collectors;
 
 /**
  * Reads a drive log: delimited text (CSV, semicolon, tab or blank separated, decimal point or comma,
- * see {@link LogFormat}) or a MATLAB {@code .mat} file (see {@link MatLogReader}), names and units by the
+ * see {@link LogFormat}) or a Level 5 {@code .mat} file (see {@link MatLogReader}), names and units by the
  * header convention of {@link LogColumns} or by a {@link ColumnMap}; values become SI. Then runs
  * {@link LogChecks}: any error throws an {@link IllegalArgumentException} naming the file and listing
  * every error (column and row, line); warnings travel with the returned {@link DriveLog}.

@@ -19,8 +19,8 @@ import java.util.Locale;
 import java.util.Map;
 
 /**
- * Reads a drive log from a MATLAB Level 5 {@code .mat} file (MATLAB's {@code save -v6} / {@code -v7}, SciPy's
- * {@code savemat}) through the MAT File Library (us.hebi.matlab.mat:mfl-core). Each channel is a real
+ * Reads a drive log from a Level 5 {@code .mat} file (MAT-file versions 6 and 7, as written by {@code save -v6} /
+ * {@code -v7} or SciPy's {@code savemat}) through the MAT File Library (mfl-core). Each channel is a real
  * numeric vector (N×1 or 1×N), either a top-level variable or a field of a 1×1 struct, named by the
  * header convention of {@link LogColumns} or mapped by a {@link ColumnMap} (by variable or field name).
  * Scalars and strings become metadata (a scalar {@code sample_rate_Hz} states the rate). Then the same
@@ -39,7 +39,7 @@ public final class MatLogReader {
         try {
             mat = Mat5.readFromFile(file.toFile());
         } catch (RuntimeException e) {
-            throw new IllegalArgumentException(source + ": cannot read as a MATLAB Level 5 .mat file (" + e.getMessage()
+            throw new IllegalArgumentException(source + ": cannot read as a Level 5 .mat file (" + e.getMessage()
                     + "); save it with save(..., '-v7') or scipy.io.savemat", e);
         }
         try (MatFile m = mat) {
@@ -60,19 +60,30 @@ public final class MatLogReader {
         return DriveLogReader.assemble(source, n, names.toArray(String[]::new), cols.toArray(double[][]::new), null, 0, 0, meta, map, o, d);
     }
 
+    /**
+     * Checks the 128-byte header of a Level 5 MAT-file by its structure, not its free text: bytes 124-125 hold the
+     * version (0x0100 for Level 5, 0x0200 for the HDF5-based version 7.3), bytes 126-127 the endian indicator "IM"
+     * (little-endian) or "MI" (big-endian).
+     */
     private static void checkHeader(Path file) throws IOException {
         byte[] head = new byte[128];
         int r;
         try (var in = Files.newInputStream(file)) {
             r = in.readNBytes(head, 0, 128);
         }
-        String text = new String(head, 0, Math.max(0, r), java.nio.charset.StandardCharsets.ISO_8859_1);
-        if (text.startsWith("MATLAB 7.3")) {
-            throw new IllegalArgumentException(file + ": a MATLAB 7.3 (HDF5) .mat file, which this reader does not read; save it with save(f, ..., '-v7')");
+        boolean little = r == 128 && head[126] == 'I' && head[127] == 'M';
+        boolean big = r == 128 && head[126] == 'M' && head[127] == 'I';
+        if (!little && !big) {
+            throw new IllegalArgumentException(file + ": not a Level 5 .mat file (no endian indicator in its 128-byte header; a version 4 file "
+                    + "or another format); save it as a version 6/7 MAT-file (save(f, ..., '-v7')) or with scipy.io.savemat");
         }
-        if (r < 128 || !text.startsWith("MATLAB 5.0")) {
-            throw new IllegalArgumentException(file + ": not a MATLAB Level 5 .mat file (no 'MATLAB 5.0 MAT-file' header"
-                    + (text.startsWith("MATLAB") ? "" : "; a v4 file or not MATLAB at all") + "); save it with save(f, ..., '-v7') or scipy.io.savemat");
+        int version = little ? (head[124] & 0xff) | (head[125] & 0xff) << 8 : (head[125] & 0xff) | (head[124] & 0xff) << 8;
+        if (version == 0x0200) {
+            throw new IllegalArgumentException(file + ": a version 7.3 (HDF5) .mat file, which this reader does not read; save it with save(f, ..., '-v7')");
+        }
+        if (version != 0x0100) {
+            throw new IllegalArgumentException(file + ": a .mat file of unknown version 0x" + Integer.toHexString(version)
+                    + "; save it as a version 6/7 MAT-file (save(f, ..., '-v7')) or with scipy.io.savemat");
         }
     }
 

@@ -74,7 +74,7 @@ class LogFormatsVsNumpyTest {
             # 7 time in ms under a time_s header
             Mms = np.column_stack([t * 1000, cur, vel])
             np.savetxt(d + '/ms.csv', Mms, delimiter=',', header='time_s,current_measured_A,velocity_rad_s', comments='', fmt='%.9g')
-            # 8 MATLAB v5: vectors (row vectors, savemat's default) and, compressed, a struct of channels in lab units
+            # 8 Level 5 .mat file: vectors (row vectors, savemat's default) and, compressed, a struct of channels in lab units
             scipy.io.savemat(d + '/vec.mat', {'time_s': t, 'current_measured_A': cur, 'velocity_rad_s': vel.reshape(-1, 1), 'note': 'bench run 3'}, format='5')
             scipy.io.savemat(d + '/struct.mat', {'scope': {'iq_mA': 1000 * cur, 'v_rpm': vel * 60 / (2 * np.pi)}, 'sample_rate_Hz': 16000.0},
                              format='5', do_compression=True)

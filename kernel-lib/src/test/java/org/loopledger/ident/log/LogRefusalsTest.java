@@ -117,4 +117,19 @@ class LogRefusalsTest {
         assertEquals("test", log.metadata().get("drive"));
         assertEquals(Math.sin(0.1) * 2 * Math.PI / 60, log.velocityRadPerS()[1], 1e-4 * 2 * Math.PI / 60, "rpm → rad/s");
     }
+
+    /** Level 5 MAT-file header layout (the published MAT-file format: 116-byte text, 8-byte offset, version, endian indicator). */
+    @Test
+    void matFilesOfAnotherVersionAreRefusedByTheirHeaderStructure() throws IOException {
+        byte[] v73 = new byte[512];
+        v73[124] = 0x00; v73[125] = 0x02; v73[126] = 'I'; v73[127] = 'M';   // version 0x0200, little-endian
+        Path hdf = dir.resolve("v73.mat");
+        Files.write(hdf, v73);
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> DriveLogReader.read(hdf, OPT));
+        assertTrue(e.getMessage().contains("7.3") && e.getMessage().contains("-v7"), e.getMessage());
+        Path text = dir.resolve("notmat.mat");
+        Files.writeString(text, "time_s,velocity_rad_s\n0,1\n", StandardCharsets.UTF_8);
+        e = assertThrows(IllegalArgumentException.class, () -> DriveLogReader.read(text, OPT));
+        assertTrue(e.getMessage().contains("not a Level 5 .mat file") && e.getMessage().contains("savemat"), e.getMessage());
+    }
 }
