@@ -1,10 +1,7 @@
 package org.loopledger.ident.demo;
 
-import org.apache.commons.math3.complex.Complex;
 import org.loopledger.ident.fit.TwoMassParameters;
-import org.loopledger.lti.Polynomial;
 
-import java.util.List;
 
 /**
  * Invented physical parameters of the synthetic laser-marking gantry's X axis (SYNTHETIC, for demos
@@ -45,18 +42,7 @@ public record GantryAxis(double torqueConstantNmPerA, double motorInertiaKgM2, d
      * (derivation by hand; equal to J<sub>m</sub> + J<sub>l</sub> and b when b → 0).
      */
     public TwoMassParameters modalTruth(double delayS) {
-        double jm = motorInertiaKgM2, jl = loadInertiaKgM2(), k = stiffnessNmPerRad, c = dampingNmsPerRad, b = viscousNmsPerRad;
-        double wa = Math.sqrt(k / jl), za = c / (2 * Math.sqrt(k * jl));
-        List<Complex> roots = Polynomial.ofDescending(jm * jl, jm * c + jl * c + jl * b, jm * k + jl * k + b * c, b * k).roots();
-        double p = Double.NaN, wr = Double.NaN, zr = Double.NaN;
-        for (Complex r : roots) {
-            if (Math.abs(r.getImaginary()) < 1e-9 * r.abs()) p = -r.getReal();
-            else if (r.getImaginary() > 0) {
-                wr = r.abs();
-                zr = -r.getReal() / wr;
-            }
-        }
-        double j = jm * wr * wr / (wa * wa);
-        return new TwoMassParameters(j, j * p, wr / (2 * Math.PI), zr, wa / (2 * Math.PI), za, delayS);
+        double[] t = TwoMassMechanics.modal(motorInertiaKgM2, loadInertiaKgM2(), stiffnessNmPerRad, dampingNmsPerRad, viscousNmsPerRad);
+        return new TwoMassParameters(t[0], t[1], t[2], t[3], t[4], t[5], delayS);
     }
 }

@@ -26,20 +26,9 @@ public final class GantrySimulator {
 
     public static Record simulate(GantryAxis axis, DriveLoopSettings s, long seed) {
         double t = s.sampleTimeS();
-        double jm = axis.motorInertiaKgM2(), jl = axis.loadInertiaKgM2(), k = axis.stiffnessNmPerRad(), c = axis.dampingNmsPerRad(), b = axis.viscousNmsPerRad();
         // states θm, ωm, θl, ωl; input: torque-producing current
-        double[][] a = {
-                {0, 1, 0, 0},
-                {-k / jm, -(b + c) / jm, k / jm, c / jm},
-                {0, 0, 0, 1},
-                {k / jl, c / jl, -k / jl, -c / jl}};
-        double[] bIn = {0, axis.torqueConstantNmPerA() / jm, 0, 0};
-        double[][] m = new double[5][5];
-        for (int i = 0; i < 4; i++) {
-            for (int j = 0; j < 4; j++) m[i][j] = a[i][j] * t;
-            m[i][4] = bIn[i] * t;
-        }
-        double[][] phi = expm(m);
+        double[][] phi = TwoMassMechanics.zohTransition(axis.motorInertiaKgM2(), axis.loadInertiaKgM2(), axis.stiffnessNmPerRad(), axis.dampingNmsPerRad(),
+                axis.viscousNmsPerRad(), axis.torqueConstantNmPerA(), t);
         Prbs prbs = new Prbs(PrbsPolynomial.ofOrder(s.prbsOrder()), s.prbsAmplitudeA(), s.prbsSamplesPerBit(), s.prbsPeriods(), s.sampleRateHz());
         double[] r = prbs.signal().samples();
         int n = r.length;

@@ -1,9 +1,6 @@
 package org.loopledger.ident.demo;
 
-import org.apache.commons.math3.complex.Complex;
-import org.loopledger.lti.Polynomial;
 
-import java.util.List;
 
 /**
  * Invented physical parameters of the second demo axis (SYNTHETIC, for demos and tests only): the Y axis
@@ -38,19 +35,8 @@ public record LinearAxis(double forceConstantNPerA, double carriageMassKg, doubl
      * m = m<sub>1</sub>ω<sub>r</sub>²/ω<sub>a</sub>², b' = m·p (derivation by hand, as {@link GantryAxis#modalTruth}).
      */
     public Truth truth(double delayS) {
-        double m1 = carriageMassKg, m2 = headMassKg, k = stiffnessNPerM, c = dampingNsPerM, b = viscousNsPerM;
-        double wa = Math.sqrt(k / m2), za = c / (2 * Math.sqrt(k * m2));
-        List<Complex> roots = Polynomial.ofDescending(m1 * m2, m1 * c + m2 * c + m2 * b, m1 * k + m2 * k + b * c, b * k).roots();
-        double p = Double.NaN, wr = Double.NaN, zr = Double.NaN;
-        for (Complex r : roots) {
-            if (Math.abs(r.getImaginary()) < 1e-9 * r.abs()) p = -r.getReal();
-            else if (r.getImaginary() > 0) {
-                wr = r.abs();
-                zr = -r.getReal() / wr;
-            }
-        }
-        double m = m1 * wr * wr / (wa * wa);
-        return new Truth(forceConstantNPerA, m, m * p, wr / (2 * Math.PI), zr, wa / (2 * Math.PI), za, delayS);
+        double[] t = TwoMassMechanics.modal(carriageMassKg, headMassKg, stiffnessNPerM, dampingNsPerM, viscousNsPerM);
+        return new Truth(forceConstantNPerA, t[0], t[1], t[2], t[3], t[4], t[5], delayS);
     }
 
     /** True modal parameters of current → logged carriage velocity (SI; frequencies in Hz). */

@@ -61,19 +61,8 @@ public final class LinearAxisScope {
     public static Record simulate() {
         LinearAxis ax = LinearAxis.demo();
         double t = 1 / SAMPLE_RATE_HZ;
-        double m1 = ax.carriageMassKg(), m2 = ax.headMassKg(), k = ax.stiffnessNPerM(), c = ax.dampingNsPerM(), b = ax.viscousNsPerM();
-        double[][] a = {
-                {0, 1, 0, 0},
-                {-k / m1, -(b + c) / m1, k / m1, c / m1},
-                {0, 0, 0, 1},
-                {k / m2, c / m2, -k / m2, -c / m2}};
-        double[] bIn = {0, ax.forceConstantNPerA() / m1, 0, 0};
-        double[][] m = new double[5][5];
-        for (int i = 0; i < 4; i++) {
-            for (int j = 0; j < 4; j++) m[i][j] = a[i][j] * t;
-            m[i][4] = bIn[i] * t;
-        }
-        double[][] phi = GantrySimulator.expm(m);
+        double[][] phi = TwoMassMechanics.zohTransition(ax.carriageMassKg(), ax.headMassKg(), ax.stiffnessNPerM(), ax.dampingNsPerM(),
+                ax.viscousNsPerM(), ax.forceConstantNPerA(), t);
         double[] period = multisinePeriod();
         int n = PERIOD_SAMPLES * PERIODS;
         double[] pos = new double[n], vel = new double[n], im = new double[n], inj = new double[n];
