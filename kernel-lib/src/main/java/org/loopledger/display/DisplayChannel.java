@@ -25,10 +25,8 @@ public final class DisplayChannel {
         return sink != null;
     }
 
-    /** Sends one bundle as one frame; returns false when no channel is installed. */
-    static synchronized boolean send(MimeBundle bundle) {
-        OutputStream out = sink;
-        if (out == null) return false;
+    /** One bundle as a frame: its JSON in UTF-8 after a 4-byte big-endian length. */
+    public static byte[] frame(MimeBundle bundle) {
         byte[] json = bundle.toJson().getBytes(StandardCharsets.UTF_8);
         byte[] frame = new byte[4 + json.length];
         frame[0] = (byte) (json.length >>> 24);
@@ -36,6 +34,14 @@ public final class DisplayChannel {
         frame[2] = (byte) (json.length >>> 8);
         frame[3] = (byte) json.length;
         System.arraycopy(json, 0, frame, 4, json.length);
+        return frame;
+    }
+
+    /** Sends one bundle as one frame; returns false when no channel is installed. */
+    static synchronized boolean send(MimeBundle bundle) {
+        OutputStream out = sink;
+        if (out == null) return false;
+        byte[] frame = frame(bundle);
         try {
             System.out.flush();
             System.err.flush();

@@ -58,13 +58,7 @@ class LinearOutputTest {
         List<MimeBundle> got = new ArrayList<>();
         DisplayFrameSink sink = new DisplayFrameSink(got::add);
         String text = "y".repeat(SIZE);
-        byte[] json = MimeBundle.ofText(text).toJson().getBytes(StandardCharsets.UTF_8);
-        byte[] frame = new byte[4 + json.length];
-        frame[0] = (byte) (json.length >>> 24);
-        frame[1] = (byte) (json.length >>> 16);
-        frame[2] = (byte) (json.length >>> 8);
-        frame[3] = (byte) json.length;
-        System.arraycopy(json, 0, frame, 4, json.length);
+        byte[] frame = org.loopledger.display.DisplayChannel.frame(MimeBundle.ofText(text));
         long before = allocated();
         for (int at = 0; at < frame.length; at += PACKET) sink.write(frame, at, Math.min(PACKET, frame.length - at));
         long used = allocated() - before;
