@@ -37,9 +37,9 @@ class MarginsDataTest {
         assertTrue(computed.times(l).isComputedFromModel());
         assertFalse(measured.times(computed).isComputedFromModel(), "anything multiplied by measured data is measured");
         assertTrue(computed.restrictedToRadPerS(0.1, 10).isComputedFromModel());
-        var loops = org.loopledger.control.CascadeLoops.of(computed, org.loopledger.control.Piv.of(1, 0.1, 0.1),
+        var loops = org.loopledger.control.Cascade.of(computed, org.loopledger.control.Piv.of(1, 0.1, 0.1),
                 org.loopledger.control.FilterChain.none(), org.loopledger.control.DriveTiming.continuous());
-        assertTrue(loops.velocityLoop().isComputedFromModel() && loops.plantInput().isComputedFromModel());
+        assertTrue(loops.velocityLoop().isComputedFromModel() && loops.plantInputLoop().isComputedFromModel());
         assertThrows(NoSuchMethodException.class, () -> Margins.class.getMethod("phaseMargin"));
         assertEquals(GainCrossover.class, Margins.of(l).phaseMarginCrossover().orElseThrow().getClass());
     }
