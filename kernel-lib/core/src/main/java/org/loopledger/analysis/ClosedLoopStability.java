@@ -33,9 +33,9 @@ public final class ClosedLoopStability {
     private final int unstableClosedLoopPoles;
     private final int openLoopUnstablePoles;
     private final int clockwiseEncirclements;
-    private final List<String> notes;
+    private final List<LoopWarning> notes;
 
-    private ClosedLoopStability(boolean stable, Method method, List<Complex> poles, int z, int p, int n, List<String> notes) {
+    private ClosedLoopStability(boolean stable, Method method, List<Complex> poles, int z, int p, int n, List<LoopWarning> notes) {
         this.stable = stable;
         this.method = method;
         this.closedLoopPoles = List.copyOf(poles);
@@ -48,7 +48,7 @@ public final class ClosedLoopStability {
     /** Stability of a model loop gain (poles when delay-free, Nyquist otherwise). */
     public static ClosedLoopStability of(TransferFunction loopGain) {
         ModelLoop l = ModelLoop.of(loopGain);
-        List<String> notes = new ArrayList<>();
+        List<LoopWarning> notes = new ArrayList<>();
         int p = l.openLoopUnstablePoles().getAsInt();
         NyquistCount.Count c = nyquist(l);
         if (!loopGain.hasDelay()) {
@@ -61,14 +61,14 @@ public final class ClosedLoopStability {
                 if (d > tol) z++;
                 else if (d >= -tol) onBoundary++;
             }
-            if (onBoundary > 0) notes.add(onBoundary + " closed-loop pole(s) on the stability boundary: marginally stable at best");
+            if (onBoundary > 0) notes.add(LoopWarning.of(LoopWarning.Kind.MARGINALLY_STABLE, onBoundary + " closed-loop pole(s) on the stability boundary: marginally stable at best"));
             if (c.notes().isEmpty() && p + c.clockwise() != z && onBoundary == 0) {
-                notes.add("the Nyquist count (Z = " + (p + c.clockwise()) + ") disagrees with the pole count (" + z + ")");
+                notes.add(LoopWarning.of(LoopWarning.Kind.COUNTS_DISAGREE, "the Nyquist count (Z = " + (p + c.clockwise()) + ") disagrees with the pole count (" + z + ")"));
             }
             return new ClosedLoopStability(z == 0 && onBoundary == 0, Method.CLOSED_LOOP_POLES, poles, z, p, c.clockwise(), notes);
         }
-        notes.add("the delay makes the number of closed-loop poles infinite: decided by the Nyquist criterion on the grid up to "
-                + Units.formatRadPerSAsHz(l.highRadPerS()));
+        notes.add(LoopWarning.atRadPerS(LoopWarning.Kind.DECIDED_ON_GRID, l.highRadPerS(),
+                "the delay makes the number of closed-loop poles infinite: decided by the Nyquist criterion on the grid up to " + Units.formatRadPerSAsHz(l.highRadPerS())));
         notes.addAll(c.notes());
         int z = p + c.clockwise();
         return new ClosedLoopStability(z == 0 && l.openLoopPolesOnAxis() <= Math.max(0, l.netIntegrators()), Method.NYQUIST, List.of(), z, p, c.clockwise(), notes);
@@ -87,18 +87,23 @@ public final class ClosedLoopStability {
             throw new IllegalArgumentException("the Nyquist criterion on measured data needs the number of open-loop unstable poles; "
                     + "state it with MeasuredLoop.withOpenLoopUnstablePoles(n) (0 for a stable plant and controller)");
         }
-        List<String> notes = new ArrayList<>();
+        List<LoopWarning> notes = new ArrayList<>();
         Margins m = Margins.of(l);
-        for (String w : m.warnings()) if (w.contains("band")) notes.add(w);
+        for (LoopWarning w : m.warnings()) if (BAND_COVERAGE.contains(w.kind())) notes.add(w);
         NyquistCount.Count c = nyquist(l);
         notes.addAll(c.notes());
         int z = p.getAsInt() + c.clockwise();
         if (z < 0) {
-            notes.add("Z = P + N = " + z + " is negative: the stated number of open-loop unstable poles (" + p.getAsInt()
-                    + ") cannot be right, or the band misses part of the Nyquist curve");
+            notes.add(LoopWarning.of(LoopWarning.Kind.IMPOSSIBLE_COUNT, "Z = P + N = " + z + " is negative: the stated number of open-loop unstable poles ("
+                    + p.getAsInt() + ") cannot be right, or the band misses part of the Nyquist curve"));
         }
         return new ClosedLoopStability(z == 0, Method.NYQUIST, List.of(), z, p.getAsInt(), c.clockwise(), notes);
     }
+
+    /** The margin warnings about the measured band's coverage, which a Nyquist count on data inherits. */
+    private static final java.util.Set<LoopWarning.Kind> BAND_COVERAGE = java.util.EnumSet.of(LoopWarning.Kind.CROSSOVER_ABOVE_BAND,
+            LoopWarning.Kind.CROSSOVER_BELOW_BAND, LoopWarning.Kind.NO_GAIN_CROSSOVER_IN_BAND, LoopWarning.Kind.NO_PHASE_CROSSOVER_IN_BAND,
+            LoopWarning.Kind.PEAK_AT_BAND_EDGE);
 
     private static NyquistCount.Count nyquist(LoopResponse l) {
         double end = 0;
@@ -127,8 +132,8 @@ public final class ClosedLoopStability {
     /** N: clockwise encirclements of -1 by the Nyquist curve (Z = N + P). */
     public int clockwiseEncirclements() { return clockwiseEncirclements; }
 
-    /** Notes and warnings (band coverage, grid resolution, marginal cases). */
-    public List<String> notes() { return notes; }
+    /** Notes and warnings (band coverage, grid resolution, marginal cases), structured. */
+    public List<LoopWarning> notes() { return notes; }
 
     @Override public String toString() {
         StringBuilder b = new StringBuilder();
@@ -145,7 +150,7 @@ public final class ClosedLoopStability {
             }
             b.append('\n');
         }
-        for (String n : notes) b.append("  note: ").append(n).append('\n');
+        for (LoopWarning n : notes) b.append("  note: ").append(n.message()).append('\n');
         return b.toString().stripTrailing();
     }
 }

@@ -10,7 +10,6 @@ import java.util.List;
 import java.util.Optional;
 import java.util.OptionalDouble;
 import java.util.OptionalInt;
-import java.util.function.Supplier;
 
 /**
  * Stability margins of a loop gain L, all crossings listed:
@@ -32,7 +31,9 @@ import java.util.function.Supplier;
  * Multivariable Feedback Control, 2nd ed., §2.4 (GM, PM, Ms, Mt, bandwidth of T).
  */
 public final class Margins {
-    private final Supplier<String> source;
+    private final int points;
+    private final boolean computedFromModel;
+    private final String modelDescription; // null for a loop on a grid
     private final double lowRadPerS;
     private final double highRadPerS;
     private final boolean measured;
@@ -45,12 +46,13 @@ public final class Margins {
     private final int netIntegrators;
     private final OptionalInt openLoopUnstablePoles;
     private final int polesOnAxis;
-    private final List<Supplier<String>> warningTexts;
-    private List<String> warnings; // formatted on first use (string formatting is costly in tuning loops)
+    private final List<LoopWarning> warnings;
 
-    private Margins(Supplier<String> source, LoopResponse l, List<GainCrossover> gc, List<PhaseCrossover> pc, Peak ms, Peak mt, Bandwidth bw,
-                    List<Supplier<String>> warnings) {
-        this.source = source;
+    private Margins(String modelDescription, LoopResponse l, List<GainCrossover> gc, List<PhaseCrossover> pc, Peak ms, Peak mt, Bandwidth bw,
+                    List<LoopWarning> warnings) {
+        this.modelDescription = modelDescription;
+        this.points = l.size();
+        this.computedFromModel = l instanceof MeasuredLoop ml && ml.computedFromModel();
         this.lowRadPerS = l.lowRadPerS();
         this.highRadPerS = l.highRadPerS();
         this.measured = l.isMeasured();
@@ -63,7 +65,7 @@ public final class Margins {
         this.netIntegrators = l.netIntegrators();
         this.openLoopUnstablePoles = l.openLoopUnstablePoles();
         this.polesOnAxis = l.openLoopPolesOnAxis();
-        this.warningTexts = List.copyOf(warnings);
+        this.warnings = List.copyOf(warnings);
     }
 
     /** Margins of a model loop gain (continuous or sampled, with or without delay). */
@@ -80,7 +82,7 @@ public final class Margins {
 
     /** Margins of any loop response. */
     public static Margins of(LoopResponse l) {
-        List<Supplier<String>> warn = new ArrayList<>();
+        List<LoopWarning> warn = new ArrayList<>();
         OptionalDouble ts = l.sampleTimeS();
         double[] v = new double[3];
 
@@ -142,8 +144,8 @@ public final class Margins {
             if (it.next().magnitude() < NEGLIGIBLE_LOOP_GAIN) { it.remove(); negligible++; }
         }
         if (negligible > 0) {
-            final int dropped = negligible;
-            warn.add(() -> dropped + " phase crossover(s) where |L| < 1e-12 (gain margin above 240 dB, phase set by rounding) left out");
+            warn.add(LoopWarning.of(LoopWarning.Kind.NEGLIGIBLE_CROSSOVERS_LEFT_OUT,
+                    negligible + " phase crossover(s) where |L| < 1e-12 (gain margin above 240 dB, phase set by rounding) left out"));
         }
 
         // closed-loop peaks and bandwidth
@@ -153,62 +155,57 @@ public final class Margins {
         Peak mt = new Peak(Math.sqrt(t.value()), t.omegaRadPerS(), t.atEdge());
         Bandwidth bw = bandwidth(l);
 
-        // warnings: numbers captured now, text formatted on first use
+        // warnings
         final double hiW = l.highRadPerS(), loW = l.lowRadPerS();
         final int nInt = l.netIntegrators();
         if (l instanceof ModelLoop ml) {
-            if (ml.degenerateGain()) warn.add(() -> "|L| = 1 at every frequency (all-pass loop): gain crossovers are not isolated points");
-            if (ml.degeneratePhase()) warn.add(() -> "L is real over whole frequency intervals: phase crossovers are not isolated points");
+            if (ml.degenerateGain()) warn.add(LoopWarning.of(LoopWarning.Kind.GAIN_NOT_ISOLATED, "|L| = 1 at every frequency (all-pass loop): gain crossovers are not isolated points"));
+            if (ml.degeneratePhase()) warn.add(LoopWarning.of(LoopWarning.Kind.PHASE_NOT_ISOLATED, "L is real over whole frequency intervals: phase crossovers are not isolated points"));
             if (ml.delayS() > 0 && ts.isEmpty()) {
-                warn.add(() -> "the delay adds phase crossovers without end; listed up to " + Units.formatRadPerSAsHz(hiW) + " (ten times the highest pole, zero or crossover frequency, and at least 3 delay periods)");
+                warn.add(LoopWarning.atRadPerS(LoopWarning.Kind.CROSSOVERS_TRUNCATED, hiW, "the delay adds phase crossovers without end; listed up to "
+                        + Units.formatRadPerSAsHz(hiW) + " (ten times the highest pole, zero or crossover frequency, and at least 3 delay periods)"));
             }
             int other = l.openLoopPolesOnAxis() - Math.max(0, l.netIntegrators());
-            if (other > 0) warn.add(() -> other + " open-loop pole(s) on the imaginary axis (unit circle) besides integrators: |L| is infinite there");
+            if (other > 0) warn.add(LoopWarning.of(LoopWarning.Kind.POLES_ON_BOUNDARY, other + " open-loop pole(s) on the imaginary axis (unit circle) besides integrators: |L| is infinite there"));
         }
         OptionalInt unstable = l.openLoopUnstablePoles();
         if (unstable.isPresent() && unstable.getAsInt() > 0) {
-            warn.add(() -> "the open loop has " + unstable.getAsInt() + " unstable pole(s): margins alone do not decide closed-loop stability; use ClosedLoopStability");
+            warn.add(LoopWarning.of(LoopWarning.Kind.OPEN_LOOP_UNSTABLE, "the open loop has " + unstable.getAsInt()
+                    + " unstable pole(s): margins alone do not decide closed-loop stability; use ClosedLoopStability"));
         }
         if (l.isMeasured()) {
             int last = l.size() - 1;
             double magTop = Math.exp(LoopScan.logMag(l, last));
             double magBottom = Math.exp(LoopScan.logMag(l, 0));
             if (magTop > 1) {
-                warn.add(() -> "|L| is still " + Units.formatDb(Units.ratioToDb(magTop)) + " at the top of the band (" + Units.formatRadPerSAsHz(hiW)
-                        + "): a gain crossover lies above the measured band; margins there are unknown");
+                warn.add(LoopWarning.atRadPerS(LoopWarning.Kind.CROSSOVER_ABOVE_BAND, hiW, "|L| is still " + Units.formatDb(Units.ratioToDb(magTop))
+                        + " at the top of the band (" + Units.formatRadPerSAsHz(hiW) + "): a gain crossover lies above the measured band; margins there are unknown"));
             }
             if (magBottom < 1) {
-                warn.add(() -> "|L| is already " + Units.formatDb(Units.ratioToDb(magBottom)) + " at the bottom of the band (" + Units.formatRadPerSAsHz(loW)
-                        + "): a gain crossover may lie below the measured band");
+                warn.add(LoopWarning.atRadPerS(LoopWarning.Kind.CROSSOVER_BELOW_BAND, loW, "|L| is already " + Units.formatDb(Units.ratioToDb(magBottom))
+                        + " at the bottom of the band (" + Units.formatRadPerSAsHz(loW) + "): a gain crossover may lie below the measured band"));
             }
-            if (gain.isEmpty()) warn.add(() -> "no gain crossover in the measured band: phase margin none in band");
+            if (gain.isEmpty()) warn.add(LoopWarning.of(LoopWarning.Kind.NO_GAIN_CROSSOVER_IN_BAND, "no gain crossover in the measured band: phase margin none in band"));
             if (phase.isEmpty()) {
-                warn.add(() -> "no phase crossover in the measured band: the gain margin may be set above " + Units.formatRadPerSAsHz(hiW)
-                        + " (|L| there " + Units.formatDb(Units.ratioToDb(magTop)) + ")");
+                warn.add(LoopWarning.atRadPerS(LoopWarning.Kind.NO_PHASE_CROSSOVER_IN_BAND, hiW, "no phase crossover in the measured band: the gain margin may be set above "
+                        + Units.formatRadPerSAsHz(hiW) + " (|L| there " + Units.formatDb(Units.ratioToDb(magTop)) + ")"));
             }
             int gClusters = clusters(gain.stream().mapToDouble(GainCrossover::omegaRadPerS).toArray());
             int pClusters = clusters(phase.stream().mapToDouble(PhaseCrossover::omegaRadPerS).toArray());
             if (gClusters + pClusters > 0) {
-                warn.add(() -> "crossings closer than 5 % in frequency (" + gClusters + " gain, " + pClusters
-                        + " phase): likely measurement noise near |L| = 1 or -180 deg; all are listed and the worst one counts");
+                warn.add(LoopWarning.of(LoopWarning.Kind.CLUSTERED_CROSSINGS, "crossings closer than 5 % in frequency (" + gClusters + " gain, " + pClusters
+                        + " phase): likely measurement noise near |L| = 1 or -180 deg; all are listed and the worst one counts"));
             }
-            if (ms.atBandEdge()) warn.add(() -> "peak |S| sits at the band edge " + Units.formatRadPerSAsHz(ms.omegaRadPerS()) + ": the true Ms may lie outside the band");
+            if (ms.atBandEdge()) {
+                warn.add(LoopWarning.atRadPerS(LoopWarning.Kind.PEAK_AT_BAND_EDGE, ms.omegaRadPerS(), "peak |S| sits at the band edge "
+                        + Units.formatRadPerSAsHz(ms.omegaRadPerS()) + ": the true Ms may lie outside the band"));
+            }
             if (l instanceof MeasuredLoop m && !m.integratorsStated()) {
-                warn.add(() -> "net integrators estimated from the low-frequency slope: " + nInt + " (state them with withIntegrators if known)");
+                warn.add(LoopWarning.of(LoopWarning.Kind.INTEGRATORS_ESTIMATED, "net integrators estimated from the low-frequency slope: " + nInt
+                        + " (state them with withIntegrators if known)"));
             }
         }
-        Supplier<String> source;
-        if (l.isMeasured()) {
-            int size = l.size();
-            OptionalDouble tsCopy = l.sampleTimeS();
-            String origin = l instanceof MeasuredLoop ml && ml.computedFromModel() ? "model response on a grid, " : "measured data, ";
-            source = () -> origin + size + " points, " + Units.formatRadPerSAsHz(loW) + " .. " + Units.formatRadPerSAsHz(hiW)
-                    + (tsCopy.isPresent() ? ", sampled at " + org.loopledger.lti.Units.formatHz(1 / tsCopy.getAsDouble()) : "");
-        } else {
-            String d = l.describe();
-            source = () -> d;
-        }
-        return new Margins(source, l, gain, phase, ms, mt, bw, warn);
+        return new Margins(l.isMeasured() ? null : l.describe(), l, gain, phase, ms, mt, bw, warn);
     }
 
     /** |L| under which a phase crossover is not reported (a gain margin of 240 dB). */
@@ -336,21 +333,24 @@ public final class Margins {
 
     public double highRadPerS() { return highRadPerS; }
 
-    /** Warnings and notes (band coverage, degenerate cases), in plain words. */
-    public List<String> warnings() {
-        List<String> w = warnings;
-        if (w == null) {
-            w = warningTexts.stream().map(Supplier::get).toList();
-            warnings = w;
-        }
-        return w;
+    /**
+     * Where the figures come from, in words: the model, or "measured data" / "model response on a grid" with the
+     * number of points, the band and the sample rate.
+     */
+    public String source() {
+        if (modelDescription != null) return modelDescription;
+        return (computedFromModel ? "model response on a grid, " : "measured data, ") + points + " points, " + Units.formatRadPerSAsHz(lowRadPerS)
+                + " .. " + Units.formatRadPerSAsHz(highRadPerS) + (sampleTimeS.isPresent() ? ", sampled at " + Units.formatHz(1 / sampleTimeS.getAsDouble()) : "");
     }
+
+    /** Warnings and notes (band coverage, degenerate cases), structured: kind, frequency where it applies, message. */
+    public List<LoopWarning> warnings() { return warnings; }
 
     private String none() { return measured ? "none in band" : "no crossover"; }
 
     @Override public String toString() {
         StringBuilder b = new StringBuilder();
-        b.append("Margins (").append(source.get()).append(")\n");
+        b.append("Margins (").append(source()).append(")\n");
         b.append("  gain margin (increase): ").append(upperGainMargin().map(p -> Units.formatDb(p.gainMarginDb()) + " (x" + Units.g4(p.gainMarginRatio()) + ") at " + Units.formatRadPerSAsHz(p.omegaRadPerS())).orElse(none())).append('\n');
         b.append("  gain margin (decrease): ").append(lowerGainMargin().map(p -> Units.formatDb(p.gainMarginDb()) + " (x" + Units.g4(p.gainMarginRatio()) + ") at " + Units.formatRadPerSAsHz(p.omegaRadPerS())).orElse(none())).append('\n');
         b.append("  phase margin:           ").append(phaseMarginCrossover().map(g -> Units.formatDeg(g.phaseMarginDeg()) + " at " + Units.formatRadPerSAsHz(g.omegaRadPerS())).orElse(none())).append('\n');
@@ -383,7 +383,7 @@ public final class Margins {
                         .append(Units.g4(p.distanceToMinusOne())).append('\n');
             }
         }
-        for (String w : warnings()) b.append("  note: ").append(w).append('\n');
+        for (LoopWarning w : warnings) b.append("  note: ").append(w.message()).append('\n');
         return b.toString().stripTrailing();
     }
 }

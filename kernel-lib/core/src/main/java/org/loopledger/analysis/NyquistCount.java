@@ -21,7 +21,7 @@ final class NyquistCount {
     private NyquistCount() {}
 
     /** Result: clockwise encirclements, the raw (unrounded) value, and notes on its reliability. */
-    record Count(int clockwise, double raw, List<String> notes) {}
+    record Count(int clockwise, double raw, List<LoopWarning> notes) {}
 
     /**
      * @param l            the loop response on its grid
@@ -29,7 +29,7 @@ final class NyquistCount {
      *                     top point is the Nyquist point of a sampled loop (any multiple of π)
      */
     static Count count(LoopResponse l, double highEndArg) {
-        List<String> notes = new ArrayList<>();
+        List<LoopWarning> notes = new ArrayList<>();
         int n = l.size();
         double[] v = new double[3];
         double prev = Math.atan2(l.im(0), 1 + l.re(0));
@@ -69,21 +69,23 @@ final class NyquistCount {
             theta0 = 2 * Math.PI * Math.round(theta0raw / (2 * Math.PI));
         }
         if (Math.abs(theta0 - theta0raw) > Math.PI / 4) {
-            notes.add("at the lowest frequency L is far from its low-frequency asymptote (arg(1+L) off by "
-                    + Units.formatDeg(Math.toDegrees(theta0raw - theta0)) + "): the count assumes nothing happens below the band");
+            notes.add(LoopWarning.atRadPerS(LoopWarning.Kind.NYQUIST_END_UNCERTAIN, l.omegaRadPerS(0), "at the lowest frequency L is far from its low-frequency asymptote (arg(1+L) off by "
+                    + Units.formatDeg(Math.toDegrees(theta0raw - theta0)) + "): the count assumes nothing happens below the band"));
         }
         double thetaEnd;
         if (Double.isNaN(highEndArg)) thetaEnd = Math.PI * Math.round(theta / Math.PI);
         else thetaEnd = highEndArg + 2 * Math.PI * Math.round((theta - highEndArg) / (2 * Math.PI));
         if (Math.abs(thetaEnd - theta) > Math.PI / 4) {
-            notes.add("at the highest frequency 1 + L is far from its limit (arg off by " + Units.formatDeg(Math.toDegrees(theta - thetaEnd))
-                    + "): the count assumes |L| stays below 1 above the band");
+            notes.add(LoopWarning.atRadPerS(LoopWarning.Kind.NYQUIST_END_UNCERTAIN, l.omegaRadPerS(n - 1), "at the highest frequency 1 + L is far from its limit (arg off by "
+                    + Units.formatDeg(Math.toDegrees(theta - thetaEnd)) + "): the count assumes |L| stays below 1 above the band"));
         }
         double total = 2 * (thetaEnd - theta0) - Math.max(0, integrators) * Math.PI;
         double raw = -total / (2 * Math.PI);
         long r = Math.round(raw);
-        if (Math.abs(raw - r) > 1e-6) notes.add("winding number " + Units.g4(raw) + " is not an integer: the grid is too coarse or the band incomplete");
-        if (coarse) notes.add("L passes -1 closer than the grid resolves: the encirclement count may be off");
+        if (Math.abs(raw - r) > 1e-6) {
+            notes.add(LoopWarning.of(LoopWarning.Kind.NYQUIST_GRID_TOO_COARSE, "winding number " + Units.g4(raw) + " is not an integer: the grid is too coarse or the band incomplete"));
+        }
+        if (coarse) notes.add(LoopWarning.of(LoopWarning.Kind.NYQUIST_GRID_TOO_COARSE, "L passes -1 closer than the grid resolves: the encirclement count may be off"));
         return new Count((int) r, raw, notes);
     }
 }

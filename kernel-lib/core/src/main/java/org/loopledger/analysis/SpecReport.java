@@ -9,10 +9,10 @@ import java.util.OptionalDouble;
  * and the frequency where it is achieved, and the warnings of the underlying margin analysis.
  *
  * @param rows     one per requirement, in the order of {@link Spec}'s fields
- * @param warnings analysis warnings (band coverage, estimated integrators, ...)
+ * @param warnings analysis warnings (band coverage, estimated integrators, ...), structured
  * @param title    what was checked, for the record ("heavy head: velocity loop"); empty when not given
  */
-public record SpecReport(List<Row> rows, List<String> warnings, String title) {
+public record SpecReport(List<Row> rows, List<LoopWarning> warnings, String title) {
 
     public SpecReport {
         rows = List.copyOf(rows);
@@ -21,7 +21,7 @@ public record SpecReport(List<Row> rows, List<String> warnings, String title) {
     }
 
     /** An untitled report. */
-    public SpecReport(List<Row> rows, List<String> warnings) { this(rows, warnings, ""); }
+    public SpecReport(List<Row> rows, List<LoopWarning> warnings) { this(rows, warnings, ""); }
 
     /** The same report under a title that says what was checked (shown in the record's spec summary). */
     public SpecReport titled(String what) { return new SpecReport(rows, warnings, what); }
@@ -52,14 +52,14 @@ public record SpecReport(List<Row> rows, List<String> warnings, String title) {
     public static SpecReport combined(String title, SpecReport... parts) {
         if (parts.length == 0) throw new IllegalArgumentException("combine at least one report");
         List<Row> rows = new java.util.ArrayList<>();
-        List<String> warnings = new java.util.ArrayList<>();
+        List<LoopWarning> warnings = new java.util.ArrayList<>();
         for (SpecReport p : parts) {
             java.util.Objects.requireNonNull(p, "report");
             String prefix = p.title.isEmpty() ? "" : p.title + ": ";
             for (Row r : p.rows) {
                 rows.add(new Row(prefix + r.requirement(), r.limit(), r.achieved(), r.frequencyHz(), r.pass(), r.achievedValue(), r.limitValue()));
             }
-            for (String w : p.warnings) warnings.add(prefix + w);
+            for (LoopWarning w : p.warnings) warnings.add(p.title.isEmpty() ? w : w.in(p.title));
         }
         return new SpecReport(rows, warnings, title);
     }
@@ -92,7 +92,7 @@ public record SpecReport(List<Row> rows, List<String> warnings, String title) {
         for (int i = 0; i < w.length; i++) rule.append("-".repeat(w[i])).append(i + 1 < w.length ? "  " : "");
         b.append(rule).append('\n');
         for (String[] c : cells) line(b, c, w);
-        for (String x : warnings) b.append("note: ").append(x).append('\n');
+        for (LoopWarning x : warnings) b.append("note: ").append(x.message()).append('\n');
         return b.toString().stripTrailing();
     }
 

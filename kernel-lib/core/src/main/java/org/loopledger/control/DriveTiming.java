@@ -10,7 +10,7 @@ import java.util.OptionalDouble;
 /**
  * The digital drive's effects on a loop: sample rate, computation delay, zero-order hold on the output,
  * and the closed current loop as a first-order lag. Their product D(jω) ({@link #multiplyFactor}) is
- * included in every loop gain computed by {@link CascadeLoops}:
+ * included in every loop gain computed by {@link Cascade}:
  * <pre>
  *   D(jω) = e<sup>-jωτ<sub>c</sub></sup> · H<sub>zoh</sub>(jω) · ω<sub>cl</sub>/(jω + ω<sub>cl</sub>),
  *   τ<sub>c</sub> = (computation delay in samples)·T,
@@ -24,7 +24,7 @@ import java.util.OptionalDouble;
  *       the plant output is small above the Nyquist frequency (the usual case for a servo plant that rolls off), and it
  *       is the only treatment available for a measured plant {@link Frf}. For a model plant the exact alternative is to
  *       discretise it with {@code Discretization.zoh}, which contains the hold, and then not to apply this factor:
- *       {@link CascadeTransferFunctions#sampled} does that (exact at the sample instants).</li>
+ *       {@link Cascade#models()} does that (exact at the sample instants).</li>
  *   <li><b>Current loop</b>: optional first-order lag with bandwidth ω<sub>cl</sub> (Hz at the boundary) between the
  *       current command and the current, when the plant data start at the current rather than at the command.</li>
  * </ul>
@@ -32,7 +32,7 @@ import java.util.OptionalDouble;
  * velocity estimate already contains the hold, the delays and the current loop. Then use a sampled timing with
  * {@code withZeroOrderHold(false)}, delay 0 and no current lag, so that only the controller is made discrete.
  *
- * <p>With a sample rate, {@link CascadeLoops} evaluates the controller and filters in their discrete forms at
+ * <p>With a sample rate, {@link Cascade} evaluates the controller and filters in their discrete forms at
  * z = e<sup>jωT</sup>, so the frequency grid must end at or below the Nyquist frequency. Immutable.
  */
 public final class DriveTiming {

@@ -120,10 +120,10 @@ public final class Pid {
         double e = expectedPositionGainPerS;
         boolean loIsKp = Math.abs(Math.log(lo / e)) <= Math.abs(Math.log(hi / e));
         double kpPos = loIsKp ? lo : hi, wi = loIsKp ? hi : lo;
-        List<String> w = new ArrayList<>(swapWarning(a, kpPos, wi, "the zero nearest the expected Kp = " + Units.g4(e) + " 1/s"));
+        List<PidWarning> w = new ArrayList<>(swapWarning(a, kpPos, wi, "the zero nearest the expected Kp = " + Units.g4(e) + " 1/s"));
         if (Math.abs(Math.log(kpPos / e)) > Math.log(2)) {
-            w.add("neither zero (" + Units.g4(lo) + " and " + Units.g4(hi) + " rad/s) lies within a factor of 2 of the expected Kp = "
-                    + Units.g4(e) + " 1/s: check the PID's units (per rad, per s) before using this PIV");
+            w.add(new PidWarning(PidWarning.Kind.FAR_FROM_EXPECTED_POSITION_GAIN, "neither zero (" + Units.g4(lo) + " and " + Units.g4(hi) + " rad/s) lies within a factor of 2 of the expected Kp = "
+                    + Units.g4(e) + " 1/s: check the PID's units (per rad, per s) before using this PIV"));
         }
         return build(a, kpPos, wi, w);
     }
@@ -139,19 +139,19 @@ public final class Pid {
         return new double[] {Math.min(fast, slow), Math.max(fast, slow)};
     }
 
-    private PidAsPiv build(double kv, double kpPos, double wi, List<String> warnings) {
+    private PidAsPiv build(double kv, double kpPos, double wi, List<PidWarning> warnings) {
         Piv piv = Piv.of(kpPos, VelocityPi.ofRadPerS(kv, wi));
         Optional<LowPass1> lp = tau > 0 ? Optional.of(LowPass1.ofRadPerS(1.0 / tau)) : Optional.empty();
         return new PidAsPiv(piv, lp, warnings);
     }
 
     /** The other assignment, spelled out, unless the zeros coincide (then both assignments are the same PIV). */
-    private static List<String> swapWarning(double kv, double kpPos, double wi, String rule) {
+    private static List<PidWarning> swapWarning(double kv, double kpPos, double wi, String rule) {
         if (Math.abs(kpPos - wi) <= 1e-12 * Math.max(kpPos, wi)) return List.of();
-        return List.of("the PID's zeros " + Units.g4(Math.min(kpPos, wi)) + " and " + Units.g4(Math.max(kpPos, wi))
+        return List.of(new PidWarning(PidWarning.Kind.ZEROS_INTERCHANGEABLE, "the PID's zeros " + Units.g4(Math.min(kpPos, wi)) + " and " + Units.g4(Math.max(kpPos, wi))
                 + " rad/s are interchangeable; " + rule + " gives Kp = " + Units.g4(kpPos) + " 1/s, integral corner "
                 + Units.formatRadPerSAsHz(wi) + "; the other gives Kp = " + Units.g4(wi) + " 1/s, integral corner " + Units.formatRadPerSAsHz(kpPos)
-                + " (same single-loop transfer function, different reference response): pick the one that matches the drive");
+                + " (same single-loop transfer function, different reference response): pick the one that matches the drive"));
     }
 
     /**

@@ -10,7 +10,7 @@ import java.util.Optional;
  * transfer function. {@code warnings} say what the conversion had to choose (which zero is the position
  * gain) and what the other choice would have given: read them before typing the gains into a drive.
  */
-public record PidAsPiv(Piv piv, Optional<LowPass1> lowPass, List<String> warnings) {
+public record PidAsPiv(Piv piv, Optional<LowPass1> lowPass, List<PidWarning> warnings) {
     public PidAsPiv {
         Objects.requireNonNull(piv, "piv");
         Objects.requireNonNull(lowPass, "lowPass");
@@ -21,6 +21,6 @@ public record PidAsPiv(Piv piv, Optional<LowPass1> lowPass, List<String> warning
 
     @Override public String toString() {
         return piv + lowPass.map(l -> ", followed by " + l.describe()).orElse("")
-                + (warnings.isEmpty() ? "" : "\n  warning: " + String.join("\n  warning: ", warnings));
+                + (warnings.isEmpty() ? "" : "\n  warning: " + String.join("\n  warning: ", warnings.stream().map(PidWarning::message).toList()));
     }
 }

@@ -19,7 +19,7 @@ import java.util.Objects;
  * <p><b>Discrete form</b> (what the drive runs at sample time T): the integral is accumulated by
  * backward Euler, I[k] = I[k-1] + ω<sub>i</sub>T·e[k], u[k] = K<sub>v</sub>(e[k] + I[k]), so
  * C<sub>v</sub>(z) = K<sub>v</sub>·((1 + ω<sub>i</sub>T)z - 1)/(z - 1). The {@code sim} package runs
- * exactly this recursion, and {@link CascadeLoops} evaluates exactly this C<sub>v</sub>(z) when the
+ * exactly this recursion, and {@link Cascade} evaluates exactly this C<sub>v</sub>(z) when the
  * drive is sampled, so frequency and time domain see the same controller.
  *
  * <p>Immutable.

@@ -1,7 +1,7 @@
 package org.loopledger.tune;
 
 import org.loopledger.analysis.Margins;
-import org.loopledger.control.CascadeLoops;
+import org.loopledger.control.Cascade;
 import org.loopledger.control.DriveTiming;
 import org.loopledger.control.FilterChain;
 import org.loopledger.control.LowPass2;
@@ -144,8 +144,8 @@ public final class AutoTune {
     }
 
     static LoadCaseFigures reanalyse(PlantCase pc, Piv piv, FilterChain filters, DriveTiming timing) {
-        CascadeLoops loops = CascadeLoops.of(pc.plantToVelocity(), piv, filters, timing);
-        return new LoadCaseFigures(pc.label(), Margins.of(loops.velocityLoop()), Margins.of(loops.plantInput()), Margins.of(loops.positionLoop()));
+        Cascade loops = Cascade.of(pc.plantToVelocity(), piv, filters, timing);
+        return new LoadCaseFigures(pc.label(), Margins.of(loops.velocityLoop()), Margins.of(loops.plantInputLoop()), Margins.of(loops.positionLoop()));
     }
 
     /** The search state; one per tuning call. */

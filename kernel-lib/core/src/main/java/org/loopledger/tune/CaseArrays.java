@@ -3,7 +3,7 @@ package org.loopledger.tune;
 import org.loopledger.control.DriveTiming;
 import org.loopledger.control.FilterChain;
 import org.loopledger.control.LowPass2;
-import org.loopledger.control.VelocityLoop;
+import org.loopledger.control.Cascade;
 import org.loopledger.control.VelocityPi;
 import org.loopledger.frf.Frf;
 
@@ -35,10 +35,10 @@ final class CaseArrays {
         fixedRe = plant.real();
         fixedIm = plant.imag();
         // B = P·F·D: multiply by the controller with Kv = 1, ωi = 0 (a pure unit gain), i.e. filters and drive effects only.
-        VelocityLoop.multiplyByController(VelocityPi.proportional(1.0), filters, timing, omega, fixedRe, fixedIm);
+        Cascade.multiplyByVelocityPath(VelocityPi.proportional(1.0), filters, timing, omega, fixedRe, fixedIm);
         double[] unitRe = new double[n], unitIm = new double[n];
         java.util.Arrays.fill(unitRe, 1.0);
-        VelocityLoop.multiplyByController(VelocityPi.ofRadPerS(1.0, 1.0), FilterChain.none(), withoutDrive(timing), omega, unitRe, unitIm);
+        Cascade.multiplyByVelocityPath(VelocityPi.ofRadPerS(1.0, 1.0), FilterChain.none(), withoutDrive(timing), omega, unitRe, unitIm);
         gRe = new double[n];
         gIm = new double[n];
         for (int i = 0; i < n; i++) {
@@ -47,7 +47,7 @@ final class CaseArrays {
         }
         double p0 = plant.phaseRadUnwrapped()[0];
         double[] fr = {1.0}, fi = {0.0};
-        VelocityLoop.multiplyByController(VelocityPi.proportional(1.0), filters, timing, new double[] {omega[0]}, fr, fi);
+        Cascade.multiplyByVelocityPath(VelocityPi.proportional(1.0), filters, timing, new double[] {omega[0]}, fr, fi);
         fixedPhase0 = p0 + Math.atan2(fi[0], fr[0]);
         baseRe = fixedRe.clone();
         baseIm = fixedIm.clone();

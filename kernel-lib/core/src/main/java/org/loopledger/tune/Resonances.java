@@ -77,7 +77,7 @@ public final class Resonances {
         double f = e[0], width = e[2], spacingHz = e[3];
         int above = (int) e[4];
         if (width >= spacingHz && above >= MIN_POINTS_ABOVE_HALF_POWER) return List.of();
-        return List.of(new ResonanceWarning(ResonanceWarning.Kind.DAMPING_NOT_RESOLVED, f, String.format(java.util.Locale.ROOT,
+        return List.of(new ResonanceWarning(ResonanceWarning.Kind.DAMPING_NOT_RESOLVED, java.util.OptionalDouble.of(f), String.format(java.util.Locale.ROOT,
                 "damping not resolved at %s: the half-power width %s spans %d grid point%s (spacing %s there); the %s's height, width "
                         + "and damping ≈ %s are set by the grid, not the mechanics. Measure with a finer frequency resolution near %s "
                         + "(a spacing below %s, i.e. a longer period or record)", Units.formatHz(f), Units.formatHz(width), above,

@@ -77,6 +77,14 @@ class SpecTest {
         assertFalse(r.rows().get(1).pass());
         assertTrue(r.rows().get(1).achieved().contains("none in band"), r.toString());
         assertFalse(r.warnings().isEmpty());
+        // structured: the missing phase crossover is named by kind, at the top of the band (1 rad/s), and a combined
+        // report keeps kind and frequency while its message says which part it came from
+        LoopWarning noPc = r.warnings().stream().filter(w -> w.kind() == LoopWarning.Kind.NO_PHASE_CROSSOVER_IN_BAND).findFirst().orElseThrow();
+        assertEquals(1 / (2 * Math.PI), noPc.frequencyHz().getAsDouble(), 1e-12);
+        LoopWarning inCombined = SpecReport.combined("both", r.titled("velocity loop")).warnings().stream()
+                .filter(w -> w.kind() == LoopWarning.Kind.NO_PHASE_CROSSOVER_IN_BAND).findFirst().orElseThrow();
+        assertEquals(noPc.frequencyHz(), inCombined.frequencyHz());
+        assertEquals("velocity loop: " + noPc.message(), inCombined.message());
     }
 
     /** Stability requirement: Routh says K = 7 is unstable; the lower gain margin of the conditionally stable loop. */

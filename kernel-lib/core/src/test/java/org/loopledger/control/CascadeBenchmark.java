@@ -15,16 +15,16 @@ public final class CascadeBenchmark {
     public static void main(String[] args) {
         double fs = 16000;
         double[] w = FrequencyGrid.logSpacedRadPerS(1, fs / 2, 2000);
-        TransferFunction p = CascadeLoopsTest.twoMassPlant();
+        TransferFunction p = CascadeTest.twoMassPlant();
         Frf plant = Frf.ofModel(p, w);
         Piv piv = Piv.of(150, 0.08, 25);
         FilterChain f = FilterChain.of(Notch.ofHz(400, 20, 100), LowPass2.ofHz(2000, 0.7));
         DriveTiming t = DriveTiming.sampledAtHz(fs).withComputationDelaySamples(1).withCurrentLoopBandwidthHz(3000);
         double sink = 0;
-        for (int warm = 0; warm < 300; warm++) sink += CascadeLoops.of(plant, piv, f, t).plantInput().realAt(5);
+        for (int warm = 0; warm < 300; warm++) sink += Cascade.of(plant, piv, f, t).plantInputLoop().realAt(5);
         int reps = 2000;
         long t0 = System.nanoTime();
-        for (int i = 0; i < reps; i++) sink += CascadeLoops.of(plant, piv.withPositionGain(100 + i % 50), f, t).plantInput().realAt(5);
+        for (int i = 0; i < reps; i++) sink += Cascade.of(plant, piv.withPositionGain(100 + i % 50), f, t).plantInputLoop().realAt(5);
         double msCascade = (System.nanoTime() - t0) / 1e6 / reps;
         ServoSimulation sim = ServoSimulation.of(p, piv, f, t).withCurrentLimit(10);
         for (int warm = 0; warm < 20; warm++) sink += sim.positionStep(0.01, 0.1).positionRad()[10];
@@ -32,7 +32,7 @@ public final class CascadeBenchmark {
         long t1 = System.nanoTime();
         for (int i = 0; i < simReps; i++) sink += sim.positionStep(0.01, 1.0).positionRad()[10];
         double msSim = (System.nanoTime() - t1) / 1e6 / simReps;
-        System.out.printf("CascadeLoops.of on a 2000-point FRF (all five loops, two filters, sampled drive): %.3f ms per evaluation%n", msCascade);
+        System.out.printf("Cascade.of on a 2000-point FRF (all five loops, two filters, sampled drive): %.3f ms per evaluation%n", msCascade);
         System.out.printf("ServoSimulation: 1 s at 16 kHz (16001 samples, two-mass plant, two filters): %.2f ms per run (%.0f samples/ms)%n",
                 msSim, 16001 / msSim);
         if (sink == 42) System.out.println();

@@ -113,7 +113,8 @@ class PivPidConversionTest {
         PidAsPiv fixedRule = pid.toPiv(ZeroAssignment.INTEGRAL_CORNER_IS_LOWER_ZERO);
         assertEquals(wi, fixedRule.piv().positionGainPerS(), 1e-9 * wi, "the fixed rule takes the larger zero as Kp");
         assertEquals(1, fixedRule.warnings().size(), fixedRule.toString());
-        String w = fixedRule.warnings().get(0);
+        assertEquals(PidWarning.Kind.ZEROS_INTERCHANGEABLE, fixedRule.warnings().get(0).kind());
+        String w = fixedRule.warnings().get(0).message();
         assertTrue(w.contains("interchangeable") && w.contains("the other gives Kp = 50 1/s"), w);
         PidAsPiv nearest = pid.toPivNearestPositionGain(45); // the drive's Kp, roughly known
         assertEquals(kp, nearest.piv().positionGainPerS(), 1e-12 * kp);
@@ -121,9 +122,9 @@ class PivPidConversionTest {
         assertEquals(kv, nearest.piv().velocity().velocityGain(), 1e-12 * kv);
         assertTrue(nearest.piv().isCloseTo(drive, 1e-12), nearest.toString());
         assertFalse(fixedRule.piv().isCloseTo(drive, 1e-3));
-        assertTrue(nearest.warnings().stream().noneMatch(x -> x.contains("factor of 2")), nearest.toString());
+        assertTrue(nearest.warnings().stream().noneMatch(x -> x.kind() == PidWarning.Kind.FAR_FROM_EXPECTED_POSITION_GAIN), nearest.toString());
         // an expectation far from both zeros is flagged
-        assertTrue(pid.toPivNearestPositionGain(5000).warnings().stream().anyMatch(x -> x.contains("factor of 2")));
+        assertTrue(pid.toPivNearestPositionGain(5000).warnings().stream().anyMatch(x -> x.kind() == PidWarning.Kind.FAR_FROM_EXPECTED_POSITION_GAIN && x.message().contains("factor of 2")));
         // round trip PID -> PIV -> PID: equal up to rounding, which isCloseTo accepts and equals need not
         Pid again = nearest.piv().toPid();
         assertTrue(again.isCloseTo(pid, 1e-12), again + " vs " + pid);

@@ -1,7 +1,8 @@
 package org.loopledger.sim;
 
 import org.junit.jupiter.api.Test;
-import org.loopledger.control.CascadeTransferFunctions;
+import org.loopledger.control.Cascade;
+import org.loopledger.frf.FrequencyGrid;
 import org.loopledger.control.DriveTiming;
 import org.loopledger.control.FilterChain;
 import org.loopledger.control.LowPass2;
@@ -13,7 +14,7 @@ import static org.junit.jupiter.api.Assertions.assertTrue;
 
 /**
  * The frequency-domain view and the simulator describe the same sampled loop: the step responses of the exact
- * sampled closed loops of {@link CascadeTransferFunctions#sampled} (run as difference equations here, a definition
+ * sampled closed loops of {@link Cascade#models()} for a sampled drive (run as difference equations here, a definition
  * of a z-transfer function) equal the simulator's samples. Whole-sample delays only (that is where the sampled
  * transfer functions exist).
  */
@@ -35,7 +36,7 @@ class SampledLoopConsistencyTest {
     }
 
     private static void check(TransferFunction plant, Piv piv, FilterChain f, DriveTiming t, double tol) {
-        CascadeTransferFunctions tf = CascadeTransferFunctions.sampled(plant, piv, f, t);
+        Cascade.Models tf = Cascade.of(plant, piv, f, t, FrequencyGrid.logSpacedRadPerS(1, 0.4 * t.sampleRateHz(), 10)).models().orElseThrow();
         ServoSimulation sim = ServoSimulation.of(plant, piv, f, t);
         TimeResponse vs = sim.velocityStep(1, 0.05), ps = sim.positionStep(1, 0.05);
         double[] u = new double[vs.size()];

@@ -2,7 +2,7 @@ package org.loopledger.tune;
 
 import org.junit.jupiter.api.Test;
 import org.loopledger.analysis.Margins;
-import org.loopledger.control.CascadeLoops;
+import org.loopledger.control.Cascade;
 import org.loopledger.control.DriveTiming;
 import org.loopledger.control.FilterChain;
 import org.loopledger.frf.FrequencyGrid;
@@ -43,8 +43,8 @@ class AutoTuneTest {
         assertEquals(fc, f.velocityCrossoverHz(), 1e-3 * fc);
         assertEquals(pmClosedForm, f.velocityLoop().phaseMarginDeg().getAsDouble(), 0.05);
         // Same check on the exact model through the continuous cascade (independent of the FRF grid).
-        CascadeLoops exact = CascadeLoops.of(rigid(J), t.piv(), FilterChain.none(), DriveTiming.continuous(), FrequencyGrid.logSpacedRadPerS(1, 5000, 400));
-        Margins m = Margins.of(exact.transferFunctions().orElseThrow().velocityLoop());
+        Cascade exact = Cascade.of(rigid(J), t.piv(), FilterChain.none(), DriveTiming.continuous(), FrequencyGrid.logSpacedRadPerS(1, 5000, 400));
+        Margins m = Margins.of(exact.models().orElseThrow().velocityLoop());
         assertEquals(pmClosedForm, m.phaseMarginDeg().getAsDouble(), 0.05);
     }
 
@@ -90,7 +90,7 @@ class AutoTuneTest {
         TargetCheck miss = t.missedTargets().get(0);
         assertEquals(TargetCheck.Kind.POSITION_BANDWIDTH, miss.kind());
         // the achieved figure is the position-loop crossover of an independent analysis of the chosen loops
-        CascadeLoops loops = CascadeLoops.of(p, t.piv(), t.filters(), drive);
+        Cascade loops = Cascade.of(p, t.piv(), t.filters(), drive);
         double crossoverHz = Margins.of(loops.positionLoop()).gainCrossovers().get(0).omegaRadPerS() / (2 * Math.PI);
         assertEquals(crossoverHz, miss.achievedHz(), 1e-9 * crossoverHz);
         assertTrue(miss.achievedHz() < 500, miss.toString());

@@ -3,7 +3,7 @@ package org.loopledger.tune;
 import org.junit.jupiter.api.Test;
 import org.loopledger.analysis.Spec;
 import org.loopledger.analysis.SpecReport;
-import org.loopledger.control.CascadeLoops;
+import org.loopledger.control.Cascade;
 import org.loopledger.control.DriveTiming;
 import org.loopledger.control.FilterChain;
 import org.loopledger.frf.Frf;
@@ -59,8 +59,8 @@ class DemoAxisTuningTest {
         assertTrue(t.specMet(), t.toString());
         Spec check = Spec.builder().minPhaseMarginDeg(45).minGainMarginDb(8).maxSensitivityPeak(1.8).build();
         for (PlantCase c : cases) {
-            CascadeLoops loops = CascadeLoops.of(c.plantToVelocity(), t.piv(), t.filters(), drive);
-            for (Frf loop : List.of(loops.velocityLoop(), loops.positionLoop(), loops.plantInput())) {
+            Cascade loops = Cascade.of(c.plantToVelocity(), t.piv(), t.filters(), drive);
+            for (Frf loop : List.of(loops.velocityLoop(), loops.positionLoop(), loops.plantInputLoop())) {
                 SpecReport r = check.check(loop);
                 assertTrue(r.passed(), c.label() + ":\n" + r);
             }

@@ -73,7 +73,7 @@ public final class MarginsRenderer {
 
         if (!m.warnings().isEmpty()) {
             h.append("<ul class=\"loopledger-warnings\">");
-            for (String w : m.warnings()) h.append("<li>").append(HtmlEscape.escape(w)).append("</li>");
+            for (var w : m.warnings()) h.append("<li>").append(HtmlEscape.escape(w.message())).append("</li>");
             h.append("</ul>");
         }
         h.append("</div>");

@@ -1,20 +1,17 @@
 package org.loopledger.notebook;
 
-import com.google.gson.JsonElement;
-import com.google.gson.JsonObject;
-import com.google.gson.JsonParser;
+import org.loopledger.display.SpecReportJson;
 
 import java.util.ArrayList;
 import java.util.List;
 
 /**
  * The spec checks found in a notebook's outputs. A spec report announces itself with the MIME type
- * {@value #MIME}: a JSON object {@code {"title": ..., "rows": [{"requirement", "limit", "achieved",
- * "at", "pass"}]}}, all strings except {@code pass}.
+ * {@value #MIME}; the format is {@link SpecReportJson}'s.
  */
 public final class SpecSummary {
     /** The MIME type that carries a spec report in an output bundle. */
-    public static final String MIME = "application/vnd.loopledger.spec-report+json";
+    public static final String MIME = SpecReportJson.MIME;
 
     /** One requirement with its outcome. */
     public record Row(String requirement, String limit, String achieved, String at, boolean pass) {}
@@ -47,17 +44,12 @@ public final class SpecSummary {
 
     private static Check parse(int cell, String json) {
         try {
-            JsonObject o = JsonParser.parseString(json).getAsJsonObject();
+            SpecReportJson.Report r = SpecReportJson.read(json);
             List<Row> rows = new ArrayList<>();
-            for (JsonElement e : o.getAsJsonArray("rows")) {
-                JsonObject r = e.getAsJsonObject();
-                rows.add(new Row(str(r, "requirement"), str(r, "limit"), str(r, "achieved"), str(r, "at"), r.has("pass") && r.get("pass").getAsBoolean()));
-            }
-            return new Check(cell, str(o, "title"), rows);
+            for (SpecReportJson.Row row : r.rows()) rows.add(new Row(row.requirement(), row.limit(), row.achieved(), row.at(), row.pass()));
+            return new Check(cell, r.title(), rows);
         } catch (RuntimeException e) {
             return new Check(cell, "unreadable spec report (" + e.getMessage() + ")", List.of(new Row("report readable", "yes", "no", "", false)));
         }
     }
-
-    private static String str(JsonObject o, String k) { return o.has(k) && !o.get(k).isJsonNull() ? o.get(k).getAsString() : ""; }
 }

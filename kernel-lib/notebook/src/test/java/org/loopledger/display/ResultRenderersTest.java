@@ -117,7 +117,7 @@ class ResultRenderersTest {
         assertEquals(List.of("position bandwidth", "20", "0.3755"), row.subList(0, 3)); // (eachText skips the empty load-case cell)
         assertTrue(row.get(row.size() - 1).startsWith("MISSED: position bandwidth 0.3755 Hz of the 20 Hz asked"), row.toString());
 
-        Resonance res = new Resonance(400, 12, 0.8, 0.001, List.of(new ResonanceWarning(ResonanceWarning.Kind.DAMPING_NOT_RESOLVED, 400, "damping <not> resolved")));
+        Resonance res = new Resonance(400, 12, 0.8, 0.001, List.of(new ResonanceWarning(ResonanceWarning.Kind.DAMPING_NOT_RESOLVED, java.util.OptionalDouble.of(400), "damping <not> resolved")));
         MimeBundle rb = Bundles.of(res);
         assertTrue(rb.plainText().contains("warning: damping <not> resolved"), rb.plainText());
         String html = rb.get(MimeBundle.TEXT_HTML).orElseThrow();

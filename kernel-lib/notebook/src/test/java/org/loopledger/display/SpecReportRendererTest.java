@@ -31,7 +31,7 @@ class SpecReportRendererTest {
         SpecReport r = report();
         MimeBundle b = Bundles.of(r);
         assertEquals(List.of(MimeBundle.TEXT_PLAIN, MimeBundle.TEXT_HTML, SpecSummary.MIME), List.copyOf(b.data().keySet()));
-        assertEquals(SpecSummary.MIME, SpecReportRenderer.SPEC_REPORT_MIME);
+        assertEquals(SpecSummary.MIME, SpecReportJson.MIME, "one format, one MIME type");
         assertEquals(r.toString(), b.plainText());
         Document d = Jsoup.parse(b.get(MimeBundle.TEXT_HTML).orElseThrow());
         var rows = d.select("tbody tr");
@@ -51,6 +51,24 @@ class SpecReportRendererTest {
         assertEquals(r.rows().get(0).requirement(), first.get("requirement").getAsString());
         assertEquals(r.rows().get(0).pass(), first.get("pass").getAsBoolean());
         assertEquals(b, Bundles.of(report()), "deterministic");
+    }
+
+    @Test
+    void theFormatReadsBackWhatItWrites() {
+        // Definition (SpecReportJson's Javadoc): every row's strings and verdict, under the given title; untitled reports
+        // get the default title. A missing field reads as empty, a missing pass as false.
+        SpecReport r = report();
+        SpecReportJson.Report back = SpecReportJson.read(SpecReportJson.write("K/(s+1)^3", r));
+        assertEquals("K/(s+1)^3", back.title());
+        assertEquals(r.rows().size(), back.rows().size());
+        for (int i = 0; i < r.rows().size(); i++) {
+            SpecReport.Row w = r.rows().get(i);
+            assertEquals(new SpecReportJson.Row(w.requirement(), w.limit(), w.achieved(), SpecReportJson.at(w), w.pass()), back.rows().get(i));
+        }
+        assertEquals(SpecReportJson.DEFAULT_TITLE, SpecReportJson.read(SpecReportJson.write(r)).title());
+        assertEquals("velocity loop", SpecReportJson.read(SpecReportJson.write(r.titled("velocity loop"))).title());
+        assertEquals(new SpecReportJson.Row("x", "", "", "", false), SpecReportJson.read("{\"rows\": [{\"requirement\": \"x\"}]}").rows().get(0));
+        assertThrows(RuntimeException.class, () -> SpecReportJson.read("[]"));
     }
 
     @Test

@@ -3,7 +3,7 @@ package org.loopledger.tune.bench;
 import org.loopledger.analysis.Margins;
 import org.loopledger.control.DriveTiming;
 import org.loopledger.control.FilterChain;
-import org.loopledger.control.VelocityLoop;
+import org.loopledger.control.Cascade;
 import org.loopledger.control.VelocityPi;
 import org.loopledger.frf.FrequencyGrid;
 import org.loopledger.frf.Frf;
@@ -77,7 +77,7 @@ public final class TuneBench {
     private static double referenceMicrosPerEvaluation(Frf plant, DriveTiming drive, int count) {
         double[] w = plant.omegaRadPerS();
         double[] re = plant.real(), im = plant.imag();
-        VelocityLoop.multiplyByController(VelocityPi.ofRadPerS(1.0, 300), FilterChain.none(), drive, w, re, im);
+        Cascade.multiplyByVelocityPath(VelocityPi.ofRadPerS(1.0, 300), FilterChain.none(), drive, w, re, im);
         double[] lr = new double[w.length], li = new double[w.length];
         double sink = 0;
         for (int pass = 0; pass < 2; pass++) { // first pass warms up

@@ -1,6 +1,7 @@
 package org.loopledger.ident.fit;
 
 import org.loopledger.lti.Units;
+import org.loopledger.lti.Warning;
 
 import java.util.Optional;
 import java.util.OptionalDouble;
@@ -13,7 +14,7 @@ import java.util.OptionalDouble;
  * @param frequencyHz where in frequency, if the finding has a place (a resonance outside the band, a band that fits badly)
  * @param message     what it means and what to do, in words
  */
-public record FitWarning(Kind kind, Optional<String> parameter, OptionalDouble frequencyHz, String message) {
+public record FitWarning(Kind kind, Optional<String> parameter, OptionalDouble frequencyHz, String message) implements Warning {
     public FitWarning {
         if (kind == null || message == null || parameter == null || frequencyHz == null) throw new IllegalArgumentException("a fit warning needs a kind and a message");
     }
