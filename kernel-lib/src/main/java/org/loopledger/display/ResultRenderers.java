@@ -32,21 +32,10 @@ import java.util.OptionalDouble;
 public final class ResultRenderers {
     private ResultRenderers() {}
 
-    /** Discrete filter coefficients, 15 significant digits (what a drive parameter needs), as the value prints them. */
+    /** Discrete filter coefficients, 15 significant digits (what a drive parameter needs), with the caution: see {@link FilterTable}. */
     public static MimeBundle coefficients(CoefficientTable t) {
-        HtmlTable h = HtmlTable.of("Filter coefficients at " + Units.formatHz(t.sampleRateHz())
-                + " (H(z) = (b0 + b1 z^-1 + b2 z^-2)/(1 + a1 z^-1 + a2 z^-2))", "#", "Filter", "b0", "b1", "b2", "a1", "a2");
-        int i = 1;
-        for (CoefficientTable.Row r : t.rows()) {
-            Filter f = r.filter();
-            BiquadCoefficients c = r.coefficients();
-            h.row(String.valueOf(i++), f.describe(), digits15(c.b0()), digits15(c.b1()), digits15(c.b2()), digits15(c.a1()), digits15(c.a2()));
-        }
-        if (h.isEmpty()) h.row(Figures.NONE, "no filters", "", "", "", "", "");
-        return html(t.toString(), h.toString());
+        return FilterTable.of(t).toMimeBundle();
     }
-
-    private static String digits15(double v) { return String.format(Locale.ROOT, "%+.15e", v); }
 
     /** Fitted parameters (value, unit, standard error, 95 % interval), the fit quality per band, and the usability verdict with its warnings. */
     public static MimeBundle fit(FitResult r) {
