@@ -24,5 +24,12 @@ final class BuiltinRenderers {
         r.register(org.loopledger.sim.ResponseMetrics.class, ResultRenderers::response);
         r.register(org.loopledger.tune.TuningResult.class, ResultRenderers::tuning);
         r.register(org.loopledger.tune.Resonance.class, ResultRenderers::resonance);
+        r.register(org.loopledger.control.Piv.class, p -> DriveGains.of(p).toMimeBundle());
+        r.register(org.loopledger.control.VelocityPi.class, v -> DriveGains.of(v).toMimeBundle());
+        r.register(org.loopledger.control.Pid.class, p -> DriveGains.of(p).toMimeBundle());
+        r.register(org.loopledger.control.FilterChain.class, f -> FilterTable.of(f).toMimeBundle());
+        r.register(org.loopledger.control.DriveTiming.class, DriveTimingRenderer::render);
+        r.register(org.loopledger.analysis.GangOfFour.class, GangOfFourRenderer::render);
+        r.register(org.loopledger.sim.TimeResponse.class, TimeResponseRenderer::render);
     }
 }

@@ -51,6 +51,31 @@ final class HtmlTable {
         h.append("</tbody></table>");
     }
 
+    /**
+     * The same table as fixed-width plain text for terminal clients: the caption, then the header and the
+     * rows with columns padded to their widest cell (two spaces apart, trailing blanks trimmed). Deterministic:
+     * nothing but the cells.
+     */
+    String toText() {
+        int n = header.size();
+        int[] width = new int[n];
+        for (int c = 0; c < n; c++) width[c] = header.get(c).length();
+        for (List<String> r : rows) for (int c = 0; c < n; c++) width[c] = Math.max(width[c], r.get(c).length());
+        StringBuilder t = new StringBuilder();
+        if (caption != null && !caption.isEmpty()) t.append(caption).append('\n');
+        textLine(t, header, width);
+        for (List<String> r : rows) textLine(t, r, width);
+        return t.toString();
+    }
+
+    private static void textLine(StringBuilder t, List<String> cells, int[] width) {
+        StringBuilder line = new StringBuilder("  ");
+        for (int c = 0; c < cells.size(); c++) {
+            line.append(c == cells.size() - 1 ? cells.get(c) : org.loopledger.lti.Units.padRight(cells.get(c), width[c] + 2));
+        }
+        t.append(line.toString().stripTrailing()).append('\n');
+    }
+
     @Override public String toString() {
         StringBuilder h = new StringBuilder();
         appendTo(h);

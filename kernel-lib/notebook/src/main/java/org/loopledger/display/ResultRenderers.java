@@ -32,21 +32,10 @@ import java.util.OptionalDouble;
 public final class ResultRenderers {
     private ResultRenderers() {}
 
-    /** Discrete filter coefficients, 15 significant digits (what a drive parameter needs), as the value prints them. */
+    /** Discrete filter coefficients, 15 significant digits (what a drive parameter needs), with the caution: see {@link FilterTable}. */
     public static MimeBundle coefficients(CoefficientTable t) {
-        HtmlTable h = HtmlTable.of("Filter coefficients at " + Units.formatHz(t.sampleRateHz())
-                + " (H(z) = (b0 + b1 z^-1 + b2 z^-2)/(1 + a1 z^-1 + a2 z^-2))", "#", "Filter", "b0", "b1", "b2", "a1", "a2");
-        int i = 1;
-        for (CoefficientTable.Row r : t.rows()) {
-            Filter f = r.filter();
-            BiquadCoefficients c = r.coefficients();
-            h.row(String.valueOf(i++), f.describe(), digits15(c.b0()), digits15(c.b1()), digits15(c.b2()), digits15(c.a1()), digits15(c.a2()));
-        }
-        if (h.isEmpty()) h.row(Figures.NONE, "no filters", "", "", "", "", "");
-        return html(t.toString(), h.toString());
+        return FilterTable.of(t).toMimeBundle();
     }
-
-    private static String digits15(double v) { return String.format(Locale.ROOT, "%+.15e", v); }
 
     /** Fitted parameters (value, unit, standard error, 95 % interval), the fit quality per band, and the usability verdict with its warnings. */
     public static MimeBundle fit(FitResult r) {
@@ -139,16 +128,10 @@ public final class ResultRenderers {
             }
             t.appendTo(h);
         }
-        HtmlTable g = HtmlTable.of("Gains", "Parameter", "Value", "Unit");
-        Motion motion = r.motion();
-        double kp = r.piv().positionGainPerS(), kv = r.piv().velocity().velocityGain();
-        g.row("Position gain Kp", Figures.num(kp), "1/s");
-        if (motion == Motion.LINEAR) g.row("Position gain Kp", Figures.num(Motion.metresPerMinutePerMm(kp)), "(m/min)/mm");
-        g.row("Velocity gain Kv", Figures.num(kv), "plant-input units " + motion.velocityGainUnit());
-        if (motion == Motion.LINEAR) g.row("Velocity gain Kv", Figures.num(Motion.perMmPerS(kv)), "plant-input units per mm/s");
-        g.row("Velocity-integral corner", Figures.num(r.piv().velocity().integralCornerHz()), "Hz");
-        g.row("Filters", r.filters().isEmpty() ? "none" : r.filters().toString(), "");
-        g.appendTo(h);
+        DriveGains gains = DriveGains.of(r.piv(), r.motion());
+        gains.table().appendTo(h);
+        FilterTable filters = tuningFilters(r);
+        filters.table().appendTo(h);
         HtmlTable c = HtmlTable.of("Achieved figures per load case (independent re-analysis)", "Load case", "Velocity crossover (Hz)",
                 "Velocity PM (deg)", "Velocity GM (dB)", "Velocity Ms", "Plant-input Ms", "Plant-input PM (deg)", "Position crossover (Hz)", "Position PM (deg)");
         for (LoadCaseFigures f : r.cases()) {
@@ -162,7 +145,28 @@ public final class ResultRenderers {
             h.append("</ol>");
         }
         h.append("<p>").append(r.evaluations()).append(" loop evaluations</p>");
-        return html(r.toString(), h.append("</div>").toString());
+        h.append("<p><strong>Caution.</strong> ").append(HtmlEscape.escape(PivParameters.CAUTION)).append("</p>");
+        return html(tuningText(r), h.append("</div>").toString());
+    }
+
+    /** The filters of a tuning, with coefficients at the drive's sample rate when the timing is sampled. */
+    private static FilterTable tuningFilters(TuningResult r) {
+        return r.timing().isSampled() ? FilterTable.of(r.filters(), r.timing()) : FilterTable.of(r.filters());
+    }
+
+    /**
+     * The tuning in plain text: the value's own summary (verdict, gains, filters, figures per load case), the gains
+     * in drive units, the filter coefficients, the search trace and the caution. No wall-clock time: it reproduces.
+     */
+    static String tuningText(TuningResult r) {
+        StringBuilder t = new StringBuilder(r.toString()).append('\n');
+        t.append(DriveGains.of(r.piv(), r.motion()).table().toText());
+        if (!r.filters().isEmpty()) t.append(tuningFilters(r).table().toText());
+        if (!r.trace().isEmpty()) {
+            t.append("search trace:\n");
+            for (String s : r.trace()) t.append("  ").append(s).append('\n');
+        }
+        return t.append("Caution: ").append(PivParameters.CAUTION).toString();
     }
 
     /** A found resonance: frequency, prominence, half-power width, damping estimate, and any warning about its resolution. */

@@ -184,7 +184,9 @@ public final class CellSession implements AutoCloseable {
             agent.forgetLast();
             return Step.STOP;
         }
-        if (last && isExpression(main.snippet())) {
+        if (last && isExpression(main.snippet()) && SinkResults.hides(main.snippet())) {
+            agent.forgetLast(); // e.g. the PrintStream of a closing printf: its text is already in the output
+        } else if (last && isExpression(main.snippet())) {
             String json = agent.renderLast();
             if (json != null) {
                 out.output(new CellOutput.Result(MimeBundle.fromJson(json)));

@@ -1,0 +1,275 @@
+package org.loopledger.display;
+
+import org.loopledger.analysis.Margins;
+import org.loopledger.analysis.PhaseCrossover;
+import org.loopledger.analysis.Spec;
+import org.loopledger.frf.Frf;
+import org.loopledger.lti.TransferFunction;
+import org.loopledger.lti.Units;
+
+import java.util.ArrayList;
+import java.util.List;
+import java.util.Map;
+import java.util.Objects;
+import java.util.Optional;
+import java.util.OptionalDouble;
+import java.util.function.Function;
+
+/**
+ * Margins of several loops on several load cases in one table, one row per (load case, loop): gain
+ * crossover(s) in Hz, phase margin (deg), gain margin (dB), Ms and its frequency, delay margin (µs or ms)
+ * and the closed-loop -3 dB bandwidth; "none in band" where measured data have no crossing. Below the
+ * table, the worst phase margin, gain margin and Ms with where they occur, and, when a {@link Spec} is
+ * given, its limit and the verdict: "meets" only when checked on every row, else by how much it is missed.
+ *
+ * <pre>{@code
+ * MarginsTable.of(Map.of("heavy head", cascade.loops()), spec)       // load case -> loops in order
+ * MarginsTable.builder().row("empty", "velocity", lv).row("empty", "position", lp).spec(spec).build()
+ * }</pre>
+ *
+ * Only the phase margin, gain margin (increase) and Ms limits are checked here; any other limit of the
+ * spec is named as not checked (use {@link Spec#check} for the full report). Immutable; the margins are
+ * computed once, when the table is built.
+ */
+public final class MarginsTable implements Displayable {
+    /** One row: the labels and the loop's margins. */
+    public record Row(String loadCase, String loop, Margins margins) {
+        public Row {
+            Objects.requireNonNull(loadCase, "loadCase (use \"\" for none)");
+            Objects.requireNonNull(loop, "loop (use \"\" for none)");
+            Objects.requireNonNull(margins, "margins");
+        }
+    }
+
+    private final String title;
+    private final List<Row> rows;
+    private final Spec spec;
+
+    private MarginsTable(String title, List<Row> rows, Spec spec) {
+        if (rows.isEmpty()) throw new IllegalArgumentException("a margins table needs at least one loop; add rows with row(loadCase, loop, loopGain)");
+        this.title = title;
+        this.rows = List.copyOf(rows);
+        this.spec = spec;
+    }
+
+    /** Starts a table; add rows in the order they should show. */
+    public static Builder builder() { return new Builder(); }
+
+    /** Load case label to its loops (loop label to loop gain), both in the maps' iteration order (use LinkedHashMap). */
+    public static MarginsTable of(Map<String, ? extends Map<String, Frf>> loopsByLoadCase) {
+        Builder b = builder();
+        loopsByLoadCase.forEach((lc, loops) -> loops.forEach((loop, l) -> b.row(lc, loop, l)));
+        return b.build();
+    }
+
+    /** As {@link #of(Map)}, with the spec's phase margin, gain margin and Ms limits checked. */
+    public static MarginsTable of(Map<String, ? extends Map<String, Frf>> loopsByLoadCase, Spec spec) {
+        return of(loopsByLoadCase).withSpec(spec);
+    }
+
+    /** The loops of one load case (loop label to loop gain, in order). */
+    public static MarginsTable ofLoops(String loadCase, Map<String, Frf> loops) {
+        return of(Map.of(loadCase, loops));
+    }
+
+    /** The same rows checked against {@code spec}. */
+    public MarginsTable withSpec(Spec spec) { return new MarginsTable(title, rows, Objects.requireNonNull(spec, "spec")); }
+
+    /** The same table with another caption. */
+    public MarginsTable titled(String title) { return new MarginsTable(Objects.requireNonNull(title, "title"), rows, spec); }
+
+    public List<Row> rows() { return rows; }
+
+    public Optional<Spec> spec() { return Optional.ofNullable(spec); }
+
+    public String title() { return title; }
+
+    /** The lowest phase margin over the rows, where it is, and the verdict against the spec's minimum. */
+    public WorstMargin worstPhaseMargin() {
+        return worst("phase margin", "deg", m -> m.phaseMarginCrossover().map(g -> new double[] {g.phaseMarginDeg(), g.frequencyHz()}),
+                spec == null ? OptionalDouble.empty() : spec.minPhaseMarginDeg(), true, "no gain crossover");
+    }
+
+    /** The lowest gain margin (increase) over the rows, where it is, and the verdict against the spec's minimum. */
+    public WorstMargin worstGainMargin() {
+        return worst("gain margin", "dB", m -> m.upperGainMargin().map(p -> new double[] {p.gainMarginDb(), p.frequencyHz()}),
+                spec == null ? OptionalDouble.empty() : spec.minGainMarginDb(), true, "no phase crossover");
+    }
+
+    /** The highest Ms = max |S| over the rows, where it is, and the verdict against the spec's maximum. */
+    public WorstMargin worstSensitivityPeak() {
+        return worst("Ms", "", m -> Optional.of(new double[] {m.sensitivityPeak().magnitude(), m.sensitivityPeak().frequencyHz()}),
+                spec == null ? OptionalDouble.empty() : spec.maxSensitivityPeak(), false, "");
+    }
+
+    /** Whether a spec was given and one of its checked limits is missed. */
+    public boolean anyMissed() {
+        return worstPhaseMargin().missed() || worstGainMargin().missed() || worstSensitivityPeak().missed();
+    }
+
+    private WorstMargin worst(String figure, String unit, Function<Margins, Optional<double[]>> get, OptionalDouble limit, boolean lowerIsWorse,
+                              String noneWhy) {
+        Row worstRow = null;
+        double worst = Double.NaN, at = Double.NaN;
+        int unchecked = 0;
+        for (Row r : rows) {
+            Optional<double[]> v = get.apply(r.margins());
+            if (v.isEmpty()) {
+                if (r.margins().measured()) unchecked++; // measured: nothing in band says nothing outside it
+                continue;
+            }
+            double x = v.get()[0];
+            if (worstRow == null || (lowerIsWorse ? x < worst : x > worst)) {
+                worstRow = r;
+                worst = x;
+                at = v.get()[1];
+            }
+        }
+        String lc = worstRow == null ? "" : worstRow.loadCase(), loop = worstRow == null ? "" : worstRow.loop();
+        if (limit.isEmpty()) return new WorstMargin(figure, worst, unit, lc, loop, at, limit, spec == null ? "" : "no limit in the spec", false);
+        double lim = limit.getAsDouble();
+        String limText = (lowerIsWorse ? "min " : "max ") + format(lim, unit);
+        String uncheckedText = unchecked == 0 ? "" : "; not checked on " + unchecked + (unchecked == 1 ? " loop" : " loops") + " (" + noneWhy + " in the measured band)";
+        if (worstRow == null) {
+            return new WorstMargin(figure, worst, unit, lc, loop, at, limit, "limit " + limText + " not checked: " + noneWhy + " in band on any loop", false);
+        }
+        double slack = lowerIsWorse ? worst - lim : lim - worst;
+        if (slack < 0) {
+            return new WorstMargin(figure, worst, unit, lc, loop, at, limit, "MISSED by " + format(-slack, unit) + " (limit " + limText + ")" + uncheckedText, true);
+        }
+        String verdict = unchecked == 0
+                ? "meets the limit " + limText + " with " + format(slack, unit) + " to spare"
+                : "limit " + limText + " kept with " + format(slack, unit) + " to spare where checked" + uncheckedText;
+        return new WorstMargin(figure, worst, unit, lc, loop, at, limit, verdict, false);
+    }
+
+    private static String format(double v, String unit) {
+        return switch (unit) {
+            case "deg" -> Units.formatDeg(v);
+            case "dB" -> Units.formatDb(v);
+            default -> Figures.num(v);
+        };
+    }
+
+    /** The spec's limits this table does not check, named. */
+    List<String> uncheckedLimits() {
+        List<String> u = new ArrayList<>();
+        if (spec == null) return u;
+        if (spec.minBandwidthHz().isPresent()) u.add("minimum bandwidth " + Units.formatHz(spec.minBandwidthHz().getAsDouble()));
+        if (spec.minLowerGainMarginDb().isPresent()) u.add("gain margin for a decrease " + Units.formatDb(spec.minLowerGainMarginDb().getAsDouble()));
+        if (spec.maxComplementaryPeak().isPresent()) u.add("max Mt " + Units.g4(spec.maxComplementaryPeak().getAsDouble()));
+        if (spec.minDelayMarginS().isPresent()) u.add("minimum delay margin " + Units.formatSeconds(spec.minDelayMarginS().getAsDouble()));
+        if (spec.requiresStability()) u.add("closed-loop stability");
+        return u;
+    }
+
+    HtmlTable table() {
+        HtmlTable t = HtmlTable.of(title, "load case", "loop", "gain crossover(s) (Hz)", "PM (deg)", "GM (dB)", "Ms", "Ms at (Hz)", "delay margin",
+                "bandwidth, -3 dB of T (Hz)");
+        for (Row r : rows) {
+            Margins m = r.margins();
+            String none = m.measured() ? "none in band" : "no crossover";
+            String cross = m.gainCrossovers().isEmpty() ? none
+                    : String.join(", ", m.gainCrossovers().stream().map(g -> Figures.num(g.frequencyHz())).toList());
+            String pm = m.phaseMarginCrossover().map(g -> Figures.fixed2(g.phaseMarginDeg())).orElse(none);
+            String gm = m.upperGainMargin().map(p -> Figures.fixed2(p.gainMarginDb())).orElse(none);
+            String dm = m.delayMarginS().isPresent() ? Units.formatSeconds(m.delayMarginS().getAsDouble()) : none;
+            String bw = m.bandwidth().frequencyHz().isPresent() ? Figures.num(m.bandwidth().frequencyHz().getAsDouble()) : (m.measured() ? "none in band" : "none");
+            t.rowWithClass(rowMisses(m) ? "fail" : "", r.loadCase(), r.loop(), cross, pm, gm, Figures.num(m.sensitivityPeak().magnitude()),
+                    Figures.num(m.sensitivityPeak().frequencyHz()) + (m.sensitivityPeak().atBandEdge() ? " (band edge)" : ""), dm, bw);
+        }
+        return t;
+    }
+
+    private boolean rowMisses(Margins m) {
+        if (spec == null) return false;
+        boolean pm = spec.minPhaseMarginDeg().isPresent() && m.phaseMarginDeg().isPresent() && m.phaseMarginDeg().getAsDouble() < spec.minPhaseMarginDeg().getAsDouble();
+        Optional<PhaseCrossover> up = m.upperGainMargin();
+        boolean gm = spec.minGainMarginDb().isPresent() && up.isPresent() && up.get().gainMarginDb() < spec.minGainMarginDb().getAsDouble();
+        boolean ms = spec.maxSensitivityPeak().isPresent() && m.sensitivityPeak().magnitude() > spec.maxSensitivityPeak().getAsDouble();
+        return pm || gm || ms;
+    }
+
+    private List<WorstMargin> worsts() { return List.of(worstPhaseMargin(), worstGainMargin(), worstSensitivityPeak()); }
+
+    private List<String> warnings() {
+        List<String> w = new ArrayList<>();
+        for (Row r : rows) for (String s : r.margins().warnings()) w.add(label(r) + ": " + s);
+        return w;
+    }
+
+    private static String label(Row r) {
+        return r.loadCase().isEmpty() ? r.loop() : r.loop().isEmpty() ? r.loadCase() : r.loadCase() + " / " + r.loop();
+    }
+
+    /** The fixed-width text form: the table, the worst figures with their verdicts, unchecked limits, warnings. */
+    @Override public String toString() {
+        StringBuilder t = new StringBuilder(table().toText());
+        for (WorstMargin w : worsts()) t.append(w).append('\n');
+        List<String> u = uncheckedLimits();
+        if (!u.isEmpty()) t.append("not checked by this table: ").append(String.join(", ", u)).append(" (use Spec.check on each loop)\n");
+        for (String w : warnings()) t.append("warning: ").append(w).append('\n');
+        return t.toString().stripTrailing();
+    }
+
+    @Override public MimeBundle toMimeBundle() {
+        StringBuilder h = new StringBuilder("<div class=\"loopledger-margins-table\">");
+        table().appendTo(h);
+        HtmlTable s = HtmlTable.of(spec == null ? "Worst case over the rows (no spec given: nothing checked)" : "Worst case over the rows, against the spec",
+                "Figure", "Worst", "Where", "Verdict");
+        for (WorstMargin w : worsts()) s.rowWithClass(w.missed() ? "fail" : "", w.figure(), w.valueText(), w.where(), w.verdict());
+        s.appendTo(h);
+        List<String> u = uncheckedLimits();
+        if (!u.isEmpty()) h.append("<p>Not checked by this table: ").append(HtmlEscape.escape(String.join(", ", u))).append(" (use Spec.check on each loop).</p>");
+        List<String> warnings = warnings();
+        if (!warnings.isEmpty()) {
+            h.append("<ul class=\"loopledger-warnings\">");
+            for (String w : warnings) h.append("<li>").append(HtmlEscape.escape(w)).append("</li>");
+            h.append("</ul>");
+        }
+        return MimeBundle.builder(toString()).put(MimeBundle.TEXT_HTML, h.append("</div>").toString()).build();
+    }
+
+    /** Collects rows in order; each row's margins are computed when added. */
+    public static final class Builder {
+        private final List<Row> rows = new ArrayList<>();
+        private String title = "Margins of every loop on every load case";
+        private Spec spec;
+
+        private Builder() {}
+
+        /** A measured (or model-on-a-grid) loop gain. */
+        public Builder row(String loadCase, String loop, Frf loopGain) {
+            return row(loadCase, loop, Margins.of(Objects.requireNonNull(loopGain, () -> "loop gain of " + loadCase + " / " + loop)));
+        }
+
+        /** A model loop gain (crossings found exactly). */
+        public Builder row(String loadCase, String loop, TransferFunction loopGain) {
+            return row(loadCase, loop, Margins.of(Objects.requireNonNull(loopGain, () -> "loop gain of " + loadCase + " / " + loop)));
+        }
+
+        /** Margins already computed. */
+        public Builder row(String loadCase, String loop, Margins margins) {
+            rows.add(new Row(loadCase, loop, margins));
+            return this;
+        }
+
+        /** Every loop of one load case, in the map's order (e.g. a cascade's {@code loops()}). */
+        public Builder rows(String loadCase, Map<String, Frf> loops) {
+            loops.forEach((loop, l) -> row(loadCase, loop, l));
+            return this;
+        }
+
+        public Builder spec(Spec spec) {
+            this.spec = Objects.requireNonNull(spec, "spec");
+            return this;
+        }
+
+        public Builder title(String title) {
+            this.title = Objects.requireNonNull(title, "title");
+            return this;
+        }
+
+        public MarginsTable build() { return new MarginsTable(title, rows, spec); }
+    }
+}
