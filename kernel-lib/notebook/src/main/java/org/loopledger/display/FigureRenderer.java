@@ -30,7 +30,7 @@ import java.util.Base64;
  */
 public final class FigureRenderer {
     /**
-     * MIME type of the plotted data: JSON {@code {"title", "panels": [{"title", "x_axis", "y_axis",
+     * MIME type of the plotted data: JSON {@code {"title", "note" (only when the figure has one), "panels": [{"title", "x_axis", "y_axis",
      * "series": [{"name", "x", "y"}]}]}}, where {@code x} and {@code y} are strings of numbers separated by
      * spaces. Strings, not JSON arrays, because notebook files are written indented, one array element a
      * line (nbformat does so too): a number array grows about threefold there, a string stays one line.
@@ -92,7 +92,9 @@ public final class FigureRenderer {
     /** The series each panel draws, as JSON text, numbers to {@value #PLOT_DATA_DIGITS} significant digits. */
     public static String plotData(Figure f) {
         StringBuilder b = new StringBuilder(16 * 1024);
-        b.append("{\"title\":").append(GSON.toJson(f.title())).append(",\"panels\":[");
+        b.append("{\"title\":").append(GSON.toJson(f.title()));
+        if (!f.note().isEmpty()) b.append(",\"note\":").append(GSON.toJson(f.note()));
+        b.append(",\"panels\":[");
         boolean firstPanel = true;
         for (XYChart c : f.panels()) {
             if (!firstPanel) b.append(',');

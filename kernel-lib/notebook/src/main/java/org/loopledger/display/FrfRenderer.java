@@ -1,14 +1,11 @@
 package org.loopledger.display;
 
-import org.knowm.xchart.XYChart;
 import org.loopledger.frf.Frf;
 import org.loopledger.plot.BodePlot;
 import org.loopledger.plot.CoherencePlot;
 import org.loopledger.plot.Figure;
 
 import java.io.IOException;
-import java.util.ArrayList;
-import java.util.List;
 
 /**
  * An {@link Frf} as a Bode figure (magnitude and phase over Hz), with the coherence panel below when
@@ -33,8 +30,6 @@ public final class FrfRenderer {
     public static Figure figure(Frf frf) {
         Figure bode = BodePlot.of(LABEL, frf);
         if (!frf.hasCoherence()) return bode;
-        List<XYChart> panels = new ArrayList<>(bode.panels());
-        panels.addAll(CoherencePlot.of(LABEL, frf).panels());
-        return Figure.column(bode.title(), panels);
+        return Figure.stacked(bode.title(), bode, CoherencePlot.of(LABEL, frf));
     }
 }

@@ -34,7 +34,7 @@ public final class BodePlot {
     /** Shortcut: a Bode figure of one model, on the grid of {@link #add(String, TransferFunction)}. */
     public static Figure of(String label, TransferFunction model) { return create().add(label, model).figure(); }
 
-    public BodePlot title(String title) { this.title = title; return this; }
+    public BodePlot title(String title) { this.title = title == null ? "" : title; return this; }
 
     /**
      * The unit the magnitude is relative to, shown on its axis as "Magnitude (dB re 1 UNIT)"; for a plant
@@ -52,6 +52,11 @@ public final class BodePlot {
         return this;
     }
 
+    /** "Bode plot: " and the curves' labels, for a figure the user gave no title. */
+    private String defaultTitle() {
+        return "Bode plot: " + String.join(", ", curves.stream().map(Curve::label).distinct().toList());
+    }
+
     /** Adds a curve. */
     public BodePlot add(String label, Frf frf) { curves.add(new Curve(label, frf)); return this; }
 
@@ -65,7 +70,7 @@ public final class BodePlot {
         return add(label, Frf.ofModel(model, FrequencyGrid.forModelRadPerS(model)));
     }
 
-    /** Adds a marker drawn on both panels at {@code hz}. */
+    /** Adds a marker drawn on both panels at {@code hz}, named in the legend (once per label). */
     public BodePlot mark(String label, double hz, double magDb, double phaseDeg) {
         marks.add(new Mark(label, hz, magDb, phaseDeg));
         return this;
@@ -78,23 +83,26 @@ public final class BodePlot {
         mag.getStyler().setXAxisLogarithmic(true);
         ph.getStyler().setXAxisLogarithmic(true);
         ph.getStyler().setLegendVisible(false);
-        double lo = Double.POSITIVE_INFINITY, hi = 0;
+        boolean trendUnwrapped = false;
         for (int i = 0; i < curves.size(); i++) {
             Curve c = curves.get(i);
             double[] f = c.frf().frequencyHz();
-            lo = Math.min(lo, f[0]);
-            hi = Math.max(hi, f[f.length - 1]);
+            PlotPhase.Branch branch = PlotPhase.alongTrendDeg(c.frf());
+            trendUnwrapped |= branch.differsFromPlainUnwrap();
             double[][] m = Decimation.forPanel(f, c.frf().magnitudeDb(), true, widthPx, panelHeightPx);
-            double[][] p = Decimation.forPanel(f, PlotPhase.forDisplayDeg(c.frf().phaseDegUnwrapped()), true, widthPx, panelHeightPx);
+            double[][] p = Decimation.forPanel(f, branch.phaseDeg(), true, widthPx, panelHeightPx);
             ChartStyle.curve(mag, c.label(), m[0], m[1], i);
             ChartStyle.curve(ph, c.label(), p[0], p[1], i);
         }
-        ChartStyle.reference(mag, "0 dB", new double[] {lo, hi}, new double[] {0, 0}, Palette.REFERENCE, true);
-        ChartStyle.reference(ph, "-180 deg", new double[] {lo, hi}, new double[] {-180, -180}, Palette.REFERENCE, true);
+        java.util.Set<String> labelled = new java.util.HashSet<>();
         for (Mark k : marks) {
-            ChartStyle.markers(mag, k.label(), new double[] {k.hz()}, new double[] {k.magDb()}, Palette.BRICK, false);
+            boolean inLegend = labelled.add(k.label());
+            ChartStyle.markers(mag, k.label(), new double[] {k.hz()}, new double[] {k.magDb()}, Palette.BRICK, inLegend);
             ChartStyle.markers(ph, k.label(), new double[] {k.hz()}, new double[] {k.phaseDeg()}, Palette.BRICK, false);
         }
-        return Figure.column(title, List.of(mag, ph));
+        // 0 dB and -180 deg mean something for a loop gain: drawn where the data's range comes to them, never widening it
+        Figure f = Figure.column(title.isEmpty() ? defaultTitle() : title, List.of(mag, ph))
+                .withGuides(List.of(new Figure.Guide(0, 0), new Figure.Guide(1, -180)));
+        return trendUnwrapped ? f.withNote(PlotPhase.TREND_NOTE) : f;
     }
 }

@@ -26,7 +26,7 @@ public final class CoherencePlot {
             double[][] d = Decimation.forPanel(f.frequencyHz(), coh, true, 640, 240);
             ChartStyle.curve(c, labels.get(i), d[0], d[1], i);
         }
-        return Figure.column("", List.of(c));
+        return Figure.column("Coherence: " + String.join(", ", labels), List.of(c));
     }
 
     public static Figure of(String label, Frf frf) { return of(List.of(label), List.of(frf)); }

@@ -14,16 +14,51 @@ import java.util.List;
  * Java2D surface ({@link #paint}, {@link #toImage}), so both show the same picture.
  */
 public final class Figure {
+    /**
+     * A dashed horizontal reference line (0 dB, -180 deg) on panel {@code panel} at {@code y}: drawn only where
+     * it falls inside the panel's axis range, never widening that range, and not part of the plotted data.
+     */
+    record Guide(int panel, double y) {}
+
     private final String title;
     private final List<XYChart> panels;
     private final int columns;
+    private final List<Guide> guides;
+    private final String note;
 
-    private Figure(String title, List<XYChart> panels, int columns) {
+    private Figure(String title, List<XYChart> panels, int columns, List<Guide> guides, String note) {
         if (panels.isEmpty()) throw new IllegalArgumentException("a figure needs at least one panel");
         if (columns < 1) throw new IllegalArgumentException("a figure needs at least one column, got " + columns);
         this.title = title == null ? "" : title;
         this.panels = List.copyOf(panels);
         this.columns = Math.min(columns, panels.size());
+        this.guides = List.copyOf(guides);
+        this.note = note == null ? "" : note;
+    }
+
+    private Figure(String title, List<XYChart> panels, int columns) { this(title, panels, columns, List.of(), ""); }
+
+    /** This figure with reference lines added (package use: the plot builders decide where they mean something). */
+    Figure withGuides(List<Guide> more) {
+        List<Guide> all = new java.util.ArrayList<>(guides);
+        all.addAll(more);
+        return new Figure(title, panels, columns, all, note);
+    }
+
+    /** This figure with a one-line note under the panels (how the figure was made, e.g. how phase was unwrapped). */
+    Figure withNote(String note) { return new Figure(title, panels, columns, guides, note); }
+
+    /**
+     * The panels of {@code upper} and then of {@code lower} in one column under {@code title}, keeping both
+     * figures' reference lines and notes (e.g. a Bode figure with a coherence panel below).
+     */
+    public static Figure stacked(String title, Figure upper, Figure lower) {
+        List<XYChart> p = new java.util.ArrayList<>(upper.panels);
+        p.addAll(lower.panels);
+        List<Guide> g = new java.util.ArrayList<>(upper.guides);
+        for (Guide k : lower.guides) g.add(new Guide(k.panel() + upper.panels.size(), k.y()));
+        String n = upper.note.isEmpty() ? lower.note : lower.note.isEmpty() || lower.note.equals(upper.note) ? upper.note : upper.note + " " + lower.note;
+        return new Figure(title, p, 1, g, n);
     }
 
     /** Panels stacked in one column. */
@@ -36,6 +71,11 @@ public final class Figure {
     public static Figure single(XYChart chart) { return new Figure("", List.of(chart), 1); }
 
     public String title() { return title; }
+
+    /** The note under the panels, "" for none. */
+    public String note() { return note; }
+
+    List<Guide> guides() { return guides; }
 
     /** The panels (the charts themselves, for inspection of their data series). */
     public List<XYChart> panels() { return panels; }
@@ -52,7 +92,10 @@ public final class Figure {
 
     public int widthPx() { return columns * cellWidth(); }
 
-    public int heightPx() { return titleHeight() + rows() * cellHeight(); }
+    public int heightPx() { return titleHeight() + rows() * cellHeight() + (note.isEmpty() ? 0 : FigureDrawing.NOTE_PX); }
+
+    /** Top of the panel grid (below the title). */
+    int panelsTop() { return titleHeight(); }
 
     /** Paints the whole figure at (0, 0) with size {@link #widthPx()} x {@link #heightPx()}. */
     public void paint(Graphics2D g) {

@@ -20,9 +20,12 @@ public final class GangOfFourPlot {
     }
 
     public static Figure of(String title, Frf s, Frf t, Frf ps, Frf cs) {
-        return Figure.grid(title, 2, List.of(
+        String t0 = title == null || title.isEmpty() ? "Gang of Four: S, T, PS and CS" : title;
+        // 0 dB: where |S| and |T| cross one; drawn where the data come to it, never widening a panel's range
+        return Figure.grid(t0, 2, List.of(
                 panel("S = 1/(1+PC)", s), panel("T = PC/(1+PC)", t),
-                panel("PS = P/(1+PC)", ps), panel("CS = C/(1+PC)", cs)));
+                panel("PS = P/(1+PC)", ps), panel("CS = C/(1+PC)", cs)))
+                .withGuides(List.of(new Figure.Guide(0, 0), new Figure.Guide(1, 0), new Figure.Guide(2, 0), new Figure.Guide(3, 0)));
     }
 
     private static XYChart panel(String name, Frf f) {
@@ -31,8 +34,6 @@ public final class GangOfFourPlot {
         c.getStyler().setLegendVisible(false);
         double[][] d = Decimation.forPanel(f.frequencyHz(), f.magnitudeDb(), true, 380, 240);
         ChartStyle.curve(c, name, d[0], d[1], 0);
-        double[] hz = f.frequencyHz();
-        ChartStyle.reference(c, "0 dB", new double[] {hz[0], hz[hz.length - 1]}, new double[] {0, 0}, Palette.REFERENCE, true);
         return c;
     }
 }

@@ -27,7 +27,7 @@ public final class NicholsPlot {
 
     public static Figure of(String label, Frf loop) { return create().add(label, loop).figure(); }
 
-    public NicholsPlot title(String title) { this.title = title; return this; }
+    public NicholsPlot title(String title) { this.title = title == null ? "" : title; return this; }
 
     public NicholsPlot add(String label, Frf loopGain) {
         labels.add(label);
@@ -43,15 +43,19 @@ public final class NicholsPlot {
         c.getStyler().setYAxisMin(-40.0);
         c.getStyler().setYAxisMax(40.0);
         for (double mDb : CONTOURS_DB) addContour(c, mDb);
+        boolean trendUnwrapped = false;
         for (int i = 0; i < loops.size(); i++) {
             Frf l = loops.get(i);
-            double[] ph = PlotPhase.forDisplayDeg(l.phaseDegUnwrapped());
+            PlotPhase.Branch branch = PlotPhase.alongTrendDeg(l);
+            trendUnwrapped |= branch.differsFromPlainUnwrap();
+            double[] ph = branch.phaseDeg();
             double[] db = l.magnitudeDb();
             double[][] d = Decimation.forPanel(ph, db, false, 640, 480, new double[] {-360, 0}, new double[] {-40, 40});
             ChartStyle.curve(c, labels.get(i), d[0], d[1], i);
         }
         ChartStyle.markers(c, "critical point", new double[] {-180}, new double[] {0}, Palette.BRICK, false);
-        return Figure.column(title, List.of(c));
+        Figure f = Figure.column(title.isEmpty() ? "Nichols chart: " + String.join(", ", labels) : title, List.of(c));
+        return trendUnwrapped ? f.withNote(PlotPhase.TREND_NOTE) : f;
     }
 
     private static void addContour(XYChart c, double mDb) {

@@ -24,7 +24,7 @@ public final class NyquistPlot {
 
     public static Figure of(String label, Frf loop) { return create().add(label, loop).figure(); }
 
-    public NyquistPlot title(String title) { this.title = title; return this; }
+    public NyquistPlot title(String title) { this.title = title == null ? "" : title; return this; }
 
     public NyquistPlot add(String label, Frf loopGain) {
         labels.add(label);
@@ -65,7 +65,7 @@ public final class NyquistPlot {
             ChartStyle.reference(c, labels.get(i) + " (negative frequencies)", d[0], mirror, Palette.series(i), true);
         }
         ChartStyle.markers(c, "-1", new double[] {-1}, new double[] {0}, Palette.BRICK, false);
-        return Figure.column(title, List.of(c));
+        return Figure.column(title.isEmpty() ? "Nyquist plot: " + String.join(", ", labels) : title, List.of(c));
     }
 
     /** Keeps far-away points finite for drawing (they are outside the view window anyway). */
