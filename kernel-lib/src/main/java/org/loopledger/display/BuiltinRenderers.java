@@ -24,5 +24,7 @@ final class BuiltinRenderers {
         r.register(org.loopledger.sim.ResponseMetrics.class, ResultRenderers::response);
         r.register(org.loopledger.tune.TuningResult.class, ResultRenderers::tuning);
         r.register(org.loopledger.tune.Resonance.class, ResultRenderers::resonance);
+        r.register(org.loopledger.ident.estimate.LoadCases.class, LoadCaseTable::render);
+        r.register(org.loopledger.ident.estimate.LoadCaseEstimate.class, LoadCaseTable::render);
     }
 }
