@@ -31,5 +31,7 @@ final class BuiltinRenderers {
         r.register(org.loopledger.control.DriveTiming.class, DriveTimingRenderer::render);
         r.register(org.loopledger.analysis.GangOfFour.class, GangOfFourRenderer::render);
         r.register(org.loopledger.sim.TimeResponse.class, TimeResponseRenderer::render);
+        r.register(org.loopledger.ident.estimate.LoadCases.class, LoadCaseTable::render);
+        r.register(org.loopledger.ident.estimate.LoadCaseEstimate.class, LoadCaseTable::render);
     }
 }

@@ -99,11 +99,14 @@ final class RequestHandler {
     private JsonObject inspect(JsonObject c) {
         String code = c.get("code").getAsString();
         int cursor = CodePoints.toUtf16(code, c.get("cursor_pos").getAsInt());
-        Optional<String> doc = session.get().inspect(code, cursor);
+        Optional<CellSession.Inspection> doc = session.get().inspection(code, cursor);
         JsonObject reply = ok();
         reply.addProperty("found", doc.isPresent());
         JsonObject data = new JsonObject();
-        doc.ifPresent(d -> data.addProperty("text/plain", d));
+        doc.ifPresent(d -> {
+            data.addProperty("text/plain", d.plainText());
+            data.addProperty("text/markdown", d.markdown());
+        });
         reply.add("data", data);
         reply.add("metadata", new JsonObject());
         return reply;

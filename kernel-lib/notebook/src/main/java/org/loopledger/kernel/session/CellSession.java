@@ -33,6 +33,8 @@ import java.util.concurrent.ConcurrentHashMap;
  */
 public final class CellSession implements AutoCloseable {
     private final SessionOptions options;
+    /** The library's doc comments for inspection, shared by every session of the process (parsed on first use). */
+    private static final SourceDocs SOURCE_DOCS = new SourceDocs(CellSession.class.getClassLoader());
     private final Map<String, Tracebacks.Origin> origins = new ConcurrentHashMap<>();
     private volatile OutputListener listener = OutputListener.IGNORE;
     private volatile boolean interruptRequested;
@@ -352,18 +354,53 @@ public final class CellSession implements AutoCloseable {
         return new Completions(new ArrayList<>(matches), anchor[0], at);
     }
 
-    /** Signatures and Javadoc of what is at {@code cursor}, or empty when nothing is known there. */
+    /** Signatures and Javadoc of what is at {@code cursor} as plain text, or empty when nothing is known there. */
     public Optional<String> inspect(String code, int cursor) {
+        return inspection(code, cursor).map(Inspection::plainText);
+    }
+
+    /** What Shift-Tab shows: every signature JShell knows at the cursor, with its Javadoc as plain text and as Markdown. */
+    public record Inspection(String plainText, String markdown) {}
+
+    /**
+     * Signatures at {@code cursor} (UTF-16 offset) from JShell's source analysis, each with its Javadoc: JShell's own
+     * (the JDK, when its sources are installed) or, for the library's classes, the doc comment from the sources shipped
+     * in the jar ({@link SourceDocs}). Empty when nothing is known there.
+     */
+    public Optional<Inspection> inspection(String code, int cursor) {
         int at = Math.max(0, Math.min(cursor, code.length()));
-        List<SourceCodeAnalysis.Documentation> docs = shell.sourceCodeAnalysis().documentation(code, at, true);
-        if (docs.isEmpty()) return Optional.empty();
-        StringBuilder b = new StringBuilder();
-        for (SourceCodeAnalysis.Documentation d : docs) {
-            if (b.length() > 0) b.append("\n\n");
-            b.append(d.signature());
-            if (d.javadoc() != null && !d.javadoc().isBlank()) b.append("\n").append(d.javadoc().strip());
+        // JShell documents only the snippet it is given: drop the complete snippets before the cursor's (a cell of several lines)
+        int start = 0;
+        while (start < at) {
+            SourceCodeAnalysis.CompletionInfo ci = shell.sourceCodeAnalysis().analyzeCompletion(code.substring(start, at));
+            if (!ci.completeness().isComplete() || ci.remaining().isEmpty()) break;
+            int consumed = (at - start) - ci.remaining().length();
+            if (consumed <= 0) break;
+            start += consumed;
         }
-        return Optional.of(b.toString());
+        while (start < at && Character.isWhitespace(code.charAt(start))) start++;
+        List<SourceCodeAnalysis.Documentation> docs = shell.sourceCodeAnalysis().documentation(code.substring(start), at - start, true);
+        if (docs.isEmpty()) return Optional.empty();
+        StringBuilder plain = new StringBuilder(), md = new StringBuilder();
+        for (SourceCodeAnalysis.Documentation d : docs) {
+            if (plain.length() > 0) {
+                plain.append("\n\n");
+                md.append("\n\n---\n\n");
+            }
+            plain.append(d.signature());
+            md.append("```java\n").append(d.signature()).append("\n```");
+            if (d.javadoc() != null && !d.javadoc().isBlank()) {
+                plain.append("\n").append(d.javadoc().strip());
+                md.append("\n\n").append(d.javadoc().strip());
+                continue;
+            }
+            Optional<DocComment> doc = SOURCE_DOCS.find(d.signature());
+            if (doc.isPresent() && !doc.get().isEmpty()) {
+                plain.append("\n\n").append(doc.get().plainText());
+                md.append("\n\n").append(doc.get().markdown());
+            }
+        }
+        return Optional.of(new Inspection(plain.toString(), md.toString()));
     }
 
     @Override
