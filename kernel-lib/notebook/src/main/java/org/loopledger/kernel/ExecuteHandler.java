@@ -10,22 +10,26 @@ import org.loopledger.kernel.session.CellOutput;
 import org.loopledger.kernel.session.CellResult;
 import org.loopledger.kernel.session.CellSession;
 import org.loopledger.kernel.session.OutputListener;
+import org.loopledger.kernel.session.StandardInput;
 
 import java.util.function.Supplier;
 
 /**
  * {@code execute_request} (Jupyter messaging specification 5.3): counts executions when
  * {@code store_history} is true and {@code silent} false; broadcasts {@code execute_input} and the
- * outputs only when not silent; replies {@code ok} or {@code error} with ename, evalue and traceback.
+ * outputs only when not silent; reads of {@code System.in} go to the front-end when it allows stdin
+ * ({@link StdinChannel}); replies {@code ok} or {@code error} with ename, evalue and traceback.
  */
 final class ExecuteHandler {
     private final Supplier<CellSession> session;
     private final Iopub iopub;
+    private final StdinChannel stdin;
     private int executionCount;
 
-    ExecuteHandler(Supplier<CellSession> session, Iopub iopub) {
+    ExecuteHandler(Supplier<CellSession> session, Iopub iopub, StdinChannel stdin) {
         this.session = session;
         this.iopub = iopub;
+        this.stdin = stdin;
     }
 
     JsonObject execute(Message request) {
@@ -43,7 +47,10 @@ final class ExecuteHandler {
             iopub.publish(parent, "execute_input", input);
         }
         OutputListener listener = silent ? OutputListener.IGNORE : o -> broadcast(parent, count, o);
-        CellResult result = session.get().execute(code, "cell [" + count + "]", listener);
+        // allow_stdin absent means false, as in ipykernel: input_request only to front-ends that asked for it
+        boolean allowStdin = c.has("allow_stdin") && c.get("allow_stdin").isJsonPrimitive() && c.get("allow_stdin").getAsBoolean();
+        StandardInput input = allowStdin ? stdin.forRequest(request) : CellSession.NO_STANDARD_INPUT;
+        CellResult result = session.get().execute(code, "cell [" + count + "]", listener, input);
         iopub.flush();
         JsonObject reply = new JsonObject();
         reply.addProperty("execution_count", count);

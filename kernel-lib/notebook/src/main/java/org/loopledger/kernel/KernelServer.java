@@ -26,6 +26,8 @@ import java.util.concurrent.ExecutionException;
  */
 public final class KernelServer implements AutoCloseable {
     private static final int POLL_MS = 200;
+    /** How soon a read waiting for {@code input_reply} notices an interrupt or shutdown. */
+    private static final int STDIN_POLL_MS = 50;
 
     private final ConnectionInfo connection;
     private final ZContext context = new ZContext();
@@ -53,10 +55,12 @@ public final class KernelServer implements AutoCloseable {
         ZMQ.Socket shellSocket = bind(SocketType.ROUTER, connection.shellPort());
         ZMQ.Socket controlSocket = bind(SocketType.ROUTER, connection.controlPort());
         ZMQ.Socket iopubSocket = bind(SocketType.PUB, connection.iopubPort());
-        bind(SocketType.ROUTER, connection.stdinPort());
+        ZMQ.Socket stdinSocket = bind(SocketType.ROUTER, connection.stdinPort());
+        stdinSocket.setReceiveTimeOut(STDIN_POLL_MS);
         ZMQ.Socket hbSocket = bind(SocketType.REP, connection.hbPort());
         iopub = new Iopub(new Channel("iopub", iopubSocket, codec), replies);
-        RequestHandler handler = new RequestHandler(this::session, iopub, this::shutdownSoon);
+        StdinChannel stdin = new StdinChannel(new Channel("stdin", stdinSocket, codec), replies);
+        RequestHandler handler = new RequestHandler(this::session, iopub, stdin, this::shutdownSoon);
         startThread("loopledger-shell", () -> serve(new Channel("shell", shellSocket, codec), handler, replies));
         startThread("loopledger-control", () -> serve(new Channel("control", controlSocket, codec), handler, replies));
         startThread("loopledger-heartbeat", () -> heartbeat(hbSocket));

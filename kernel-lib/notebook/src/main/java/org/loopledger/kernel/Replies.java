@@ -26,7 +26,8 @@ final class Replies {
                 h, parentHeader, new JsonObject(), content, List.of());
     }
 
-    private JsonObject header(String type, Message request) {
+    /** A new header of {@code type} for a message sent in answer to {@code request} (same user). */
+    JsonObject header(String type, Message request) {
         return Headers.create(type, session, username(request.header()));
     }
 

@@ -22,9 +22,9 @@ final class RequestHandler {
     private final ExecuteHandler execute;
     private final Runnable onShutdown;
 
-    RequestHandler(Supplier<CellSession> session, Iopub iopub, Runnable onShutdown) {
+    RequestHandler(Supplier<CellSession> session, Iopub iopub, StdinChannel stdin, Runnable onShutdown) {
         this.session = session;
-        this.execute = new ExecuteHandler(session, iopub);
+        this.execute = new ExecuteHandler(session, iopub, stdin);
         this.onShutdown = onShutdown;
     }
 

@@ -20,8 +20,10 @@ import java.util.concurrent.TimeUnit;
  * Benchmark (not a test): our kernel against Debian's ipykernel in the same run, both driven by
  * {@code /usr/bin/python3} with jupyter_client, printed with ratios:
  * <ul>
- *   <li>cold start to the first {@code 1+1} result and the median round trip of a trivial cell (issue 5
- *       targets: cold start no worse than 2x ipykernel, trivial cell under 30 ms median);</li>
+ *   <li>cold start to the first {@code 1+1} result and the median round trip of a trivial cell, interleaved
+ *       (rounds that start both kernels in alternating order, then alternate trivial cells between them), after
+ *       jupyter_client's one-time start-up has been paid by a kernel that is not measured (issue 11 targets:
+ *       trivial cell at most 2x ipykernel's, cold start at most 1.5x);</li>
  *   <li>output throughput (issue 12): 8 MB of {@code print} (80,000 lines of 100 bytes) and one 4 MB
  *       HTML display (plain text would be shortened for display), seconds from the request to idle,
  *       against ipykernel doing the same;</li>
@@ -46,6 +48,11 @@ public final class KernelBench {
         return b.toString();
     }
 
+    static final int COLD_ROUNDS = 5;
+    static final int TRIVIAL_PER_ROUND = 40;
+    static final double TRIVIAL_TARGET = 2.0;
+    static final double COLD_TARGET = 1.5;
+
     public static int run(PrintStream out) throws IOException, InterruptedException {
         Path dir = Files.createTempDirectory("loopledger-bench");
         Kernelspec.write(dir.resolve("kernels"), Kernelspec.argvForThisJvm());
@@ -62,7 +69,8 @@ public final class KernelBench {
                 "print_8mb", "String line = \"x\".repeat(99);\nfor (int i = 0; i < " + PRINT_LINES + "; i++) System.out.println(line);",
                 "display_4mb", "display(html(\"y\".repeat(" + DISPLAY_CHARS + ")));"),
                 "cells", cells);
-        Map<String, Object> input = Map.of("jupyter_path", dir.toString(), "rounds", 60, "kernels", List.of(python, ours));
+        Map<String, Object> input = Map.of("jupyter_path", dir.toString(), "cold_rounds", COLD_ROUNDS,
+                "rounds", TRIVIAL_PER_ROUND, "kernels", List.of(python, ours));
         Process p = new ProcessBuilder("/usr/bin/python3", "-c", script).redirectError(ProcessBuilder.Redirect.INHERIT).start();
         try (OutputStream os = p.getOutputStream()) {
             os.write(new Gson().toJson(input).getBytes(StandardCharsets.UTF_8));
@@ -81,9 +89,12 @@ public final class KernelBench {
             out.printf("%-12s %14.2f %16.1f %12.1f %14.2f %16.2f%n", k, o.get("cold_start_s").getAsDouble(), o.get("median_ms").getAsDouble(),
                     o.get("p90_ms").getAsDouble(), seconds(o, "print_8mb"), seconds(o, "display_4mb"));
         }
-        out.printf("ratio loopledger/ipykernel: cold start %.2fx (target <= 2), trivial cell %.2fx; trivial cell median %.1f ms (target < 30)%n",
-                ll.get("cold_start_s").getAsDouble() / py.get("cold_start_s").getAsDouble(),
-                ll.get("median_ms").getAsDouble() / py.get("median_ms").getAsDouble(), ll.get("median_ms").getAsDouble());
+        out.printf("interleaved: %d rounds of cold start, %d trivial cells per kernel; load average at the end %s%n",
+                COLD_ROUNDS, ll.get("samples").getAsInt(), loadAverage());
+        double coldRatio = ll.get("cold_start_s").getAsDouble() / py.get("cold_start_s").getAsDouble();
+        double trivialRatio = ll.get("median_ms").getAsDouble() / py.get("median_ms").getAsDouble();
+        out.printf("ratio loopledger/ipykernel: cold start %.2fx (target <= %.1fx: %s), trivial cell %.2fx (target <= %.1fx: %s)%n",
+                coldRatio, COLD_TARGET, verdict(coldRatio, COLD_TARGET), trivialRatio, TRIVIAL_TARGET, verdict(trivialRatio, TRIVIAL_TARGET));
         out.printf("ratio loopledger/ipykernel: 8 MB print %.1fx, 4 MB display %.1fx (characters received: print %d vs %d, display %d vs %d)%n",
                 seconds(ll, "print_8mb") / seconds(py, "print_8mb"), seconds(ll, "display_4mb") / seconds(py, "display_4mb"),
                 chars(ll, "print_8mb"), chars(py, "print_8mb"), chars(ll, "display_4mb"), chars(py, "display_4mb"));
@@ -96,6 +107,19 @@ public final class KernelBench {
             out.printf("long cell, %5d statements: %7.2f s, %8.1f statements/s, rate relative to %d statements %.2f%n", n, s, rate, CELL_SIZES[0], rate / firstRate);
         }
         return 0;
+    }
+
+    /** "met" or by how much the target is missed; the ratio has been measured in this run. */
+    static String verdict(double ratio, double target) {
+        return ratio <= target ? "met" : String.format("missed by %.0f%%", 100 * (ratio / target - 1));
+    }
+
+    private static String loadAverage() {
+        try {
+            return Files.readString(Path.of("/proc/loadavg")).trim();
+        } catch (IOException e) {
+            return "unknown";
+        }
     }
 
     private static double seconds(JsonObject o, String label) {

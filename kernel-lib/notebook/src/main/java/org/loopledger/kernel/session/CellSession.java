@@ -39,6 +39,9 @@ public final class CellSession implements AutoCloseable {
     private volatile OutputListener listener = OutputListener.IGNORE;
     private volatile boolean interruptRequested;
     private volatile boolean executing;
+    private volatile StandardInput input = NO_STANDARD_INPUT;
+    /** Set by an interrupt or close: a read waiting for the user gives up. */
+    private volatile boolean inputCancelled;
     private JShell shell;
     private AgentConnection agent;
 
@@ -53,26 +56,25 @@ public final class CellSession implements AutoCloseable {
         return s;
     }
 
-    /** What a cell reading {@code System.in} is told: no keyboard here (was a silent end of input). */
-    static final String NO_STDIN_MESSAGE = "standard input is not available to Loopledger cells (no input_request is sent; "
-            + "loopledger run has no keyboard either): put the value in the cell, e.g. double gain = 1.5;";
+    /** What a cell reading {@code System.in} is told when nobody can type (was a silent end of input). */
+    static final String NO_STDIN_MESSAGE = "standard input is not available to this cell: the front-end does not allow it "
+            + "(allow_stdin is false; loopledger run and verify have no keyboard either): put the value in the cell, e.g. double gain = 1.5;";
 
-    private static final InputStream NO_STANDARD_INPUT = new InputStream() {
-        @Override
-        public int read() throws java.io.IOException {
-            throw new java.io.IOException(NO_STDIN_MESSAGE);
-        }
-    };
+    /** Reads of a cell run without a keyboard. */
+    public static final StandardInput NO_STANDARD_INPUT = StandardInput.unavailable(NO_STDIN_MESSAGE);
+
+    /** JShell's own input, unused: the agent's System.in goes over its input connection. */
+    private static final InputStream JSHELL_INPUT = InputStream.nullInputStream();
 
     private void boot() {
         AgentLauncher launcher = new AgentLauncher(options.classPath(), options.agentVmOptions(),
-                new DisplayFrameSink(b -> listener.output(new CellOutput.Display(b))));
+                new DisplayFrameSink(b -> listener.output(new CellOutput.Display(b))), this::readLine);
         PrintStream out = new PrintStream(new Utf8StreamSink(t -> listener.output(new CellOutput.Stream(CellOutput.Stream.STDOUT, t))), true, StandardCharsets.UTF_8);
         PrintStream err = new PrintStream(new Utf8StreamSink(t -> listener.output(new CellOutput.Stream(CellOutput.Stream.STDERR, t))), true, StandardCharsets.UTF_8);
         shell = JShell.builder()
                 .executionEngine(launcher, Map.of())
                 .compilerOptions("--class-path", options.classPath())
-                .in(NO_STANDARD_INPUT)
+                .in(JSHELL_INPUT)
                 .out(out)
                 .err(err)
                 .build();
@@ -98,17 +100,38 @@ public final class CellSession implements AutoCloseable {
         }
     }
 
+    /** A line for the agent's System.in, from the running cell's input (on the launcher's input thread). */
+    private String readLine() throws java.io.IOException {
+        if (inputCancelled) throw new java.io.IOException("the cell was interrupted while waiting for standard input");
+        return input.readLine(() -> inputCancelled);
+    }
+
     /**
-     * Runs one cell; outputs reach {@code sink} as they happen and are also returned.
+     * Runs one cell without a keyboard: reads of {@code System.in} fail with a message naming the fix.
      *
      * @param code      the cell source, possibly several snippets
      * @param cellLabel how tracebacks name this cell later, e.g. {@code cell [3]}
      * @param sink      receives each output as it happens, on JShell's threads or the caller's
      */
     public CellResult execute(String code, String cellLabel, OutputListener sink) {
+        return execute(code, cellLabel, sink, NO_STANDARD_INPUT);
+    }
+
+    /**
+     * Runs one cell; outputs reach {@code sink} as they happen and are also returned.
+     *
+     * @param code      the cell source, possibly several snippets
+     * @param cellLabel how tracebacks name this cell later, e.g. {@code cell [3]}
+     * @param sink      receives each output as it happens, on JShell's threads or the caller's
+     * @param stdin     answers the cell's reads of {@code System.in}, one line at a time; asked on another
+     *                  thread, and told to give up when the cell is interrupted or the session closes
+     */
+    public CellResult execute(String code, String cellLabel, OutputListener sink, StandardInput stdin) {
         CellResult.Collector collector = new CellResult.Collector(sink);
         listener = collector;
         interruptRequested = false;
+        inputCancelled = false;
+        input = stdin;
         executing = true;
         try {
             runSnippets(code, cellLabel, collector);
@@ -123,6 +146,7 @@ public final class CellSession implements AutoCloseable {
             }
         } finally {
             executing = false;
+            input = NO_STANDARD_INPUT;
         }
         return collector.result();
     }
@@ -254,6 +278,7 @@ public final class CellSession implements AutoCloseable {
      */
     public void interrupt() {
         interruptRequested = true;
+        inputCancelled = true;
         stopOnce();
         if (!executing) return;
         Thread retry = new Thread(() -> {
@@ -405,6 +430,7 @@ public final class CellSession implements AutoCloseable {
 
     @Override
     public void close() {
+        inputCancelled = true;
         try {
             shell.close();
         } catch (RuntimeException e) {

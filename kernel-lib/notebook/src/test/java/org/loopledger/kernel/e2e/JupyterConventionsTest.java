@@ -61,11 +61,48 @@ class JupyterConventionsTest {
         assertEquals("0", shown, after::toString);
     }
 
-    /** Reading System.in fails with a message naming the problem and the fix, instead of a silent end of input (-1). */
+    /**
+     * With {@code allow_stdin: false} (as the headless runner runs), reading System.in fails with a message
+     * naming the problem and the fix, instead of a silent end of input (-1) or an input_request.
+     */
     @Test
-    void readingStandardInputFailsClearly() {
+    void readingStandardInputFailsClearlyWithoutStdin() {
         JsonObject r = step("stdin_refused").getAsJsonObject("reply");
         assertEquals("error", r.get("status").getAsString(), r::toString);
         assertTrue(r.get("evalue").getAsString().contains("standard input is not available"), r::toString);
+        assertTrue(r.get("evalue").getAsString().contains("allow_stdin is false"), r::toString);
+    }
+
+    /**
+     * Jupyter messaging specification 5.3, "Messages on the stdin ROUTER/DEALER channel": with
+     * {@code allow_stdin: true} a read sends {@code input_request} (prompt, password) whose parent is the
+     * execute request; jupyter_client's {@code kc.input()} answers, and the line reaches the cell with its
+     * line end (Scanner.nextLine returns it without).
+     */
+    @Test
+    void readingStandardInputAsksTheFrontEnd() {
+        JsonObject s = step("stdin_answered");
+        JsonObject req = s.getAsJsonObject("request");
+        assertEquals("input_request", req.get("type").getAsString(), s::toString);
+        assertEquals("", req.getAsJsonObject("content").get("prompt").getAsString(), s::toString);
+        assertFalse(req.getAsJsonObject("content").get("password").getAsBoolean(), s::toString);
+        assertEquals(s.get("msg_id").getAsString(), req.get("parent_msg_id").getAsString(), s::toString);
+        assertEquals("ok", s.getAsJsonObject("reply").get("status").getAsString(), s::toString);
+        String shown = null;
+        for (JsonElement e : s.getAsJsonArray("iopub")) {
+            JsonObject m = e.getAsJsonObject();
+            if (m.get("type").getAsString().equals("execute_result")) shown = m.getAsJsonObject("content").getAsJsonObject("data").get("text/plain").getAsString();
+        }
+        assertEquals("\"hello axis\"", shown, s::toString);
+    }
+
+    /** An interrupt while the kernel waits for input_reply ends the cell with an error; the next cell runs. */
+    @Test
+    void interruptWhileWaitingForInputDoesNotHang() {
+        JsonObject s = step("stdin_interrupted");
+        assertEquals("input_request", s.get("request_type").getAsString(), s::toString);
+        assertEquals("error", s.getAsJsonObject("reply").get("status").getAsString(), s::toString);
+        JsonObject after = s.getAsJsonObject("after");
+        assertEquals("ok", after.getAsJsonObject("reply").get("status").getAsString(), s::toString);
     }
 }

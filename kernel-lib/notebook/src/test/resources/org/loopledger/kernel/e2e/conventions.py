@@ -57,13 +57,35 @@ def stop_on_error():
     return {"statuses": [r["status"] for r in replies], "after": after}
 
 def stdin_refused():
-    return run("System.in.read()", allow_stdin=False)
+    return run("new java.util.Scanner(System.in).nextLine()", allow_stdin=False)
+
+def stdin_answered():
+    # messaging spec 5.3, "Messages on the stdin ROUTER/DEALER channel": the kernel asks with input_request,
+    # the front-end answers with input_reply; jupyter_client's kc.input() sends that reply
+    msg_id = kc.execute("new java.util.Scanner(System.in).nextLine()", allow_stdin=True)
+    req = kc.get_stdin_msg(timeout=60)
+    kc.input("hello axis")
+    reply = reply_for(msg_id)
+    return {"request": {"type": req["msg_type"], "content": req["content"], "parent_msg_id": req["parent_header"].get("msg_id")},
+            "msg_id": msg_id, "reply": reply["content"], "iopub": iopub_until_idle(msg_id)}
+
+def stdin_interrupted():
+    # an interrupt while the kernel waits for input_reply ends the cell; the kernel keeps serving
+    msg_id = kc.execute("new java.util.Scanner(System.in).nextLine()", allow_stdin=True)
+    req = kc.get_stdin_msg(timeout=60)
+    km.interrupt_kernel()
+    reply = reply_for(msg_id)
+    iopub_until_idle(msg_id)
+    after = run("40 + 2")
+    return {"request_type": req["msg_type"], "reply": reply["content"], "after": after}
 
 try:
     kc.wait_for_ready(timeout=90)
     step("json_mime", json_mime)
     step("stop_on_error", stop_on_error)
     step("stdin_refused", stdin_refused)
+    step("stdin_answered", stdin_answered)
+    step("stdin_interrupted", stdin_interrupted)
 finally:
     try:
         kc.stop_channels()

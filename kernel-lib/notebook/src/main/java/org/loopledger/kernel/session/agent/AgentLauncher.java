@@ -36,18 +36,28 @@ public final class AgentLauncher implements ExecutionControlProvider {
     private final String classPath;
     private final List<String> vmOptions;
     private final OutputStream displaySink;
+    private final LineSource stdin;
     private volatile AgentConnection connection;
 
     /**
      * @param classPath   class path of the agent JVM (the library and its dependencies)
      * @param vmOptions   extra JVM options for the agent, e.g. {@code -Xmx2g}; not modified
      * @param displaySink receives the raw bytes of the display channel (length-prefixed frames)
+     * @param stdin       answers the cell's {@code System.in} reads, one line each, on a thread of its own
      */
-    public AgentLauncher(String classPath, List<String> vmOptions, OutputStream displaySink) {
+    public AgentLauncher(String classPath, List<String> vmOptions, OutputStream displaySink, LineSource stdin) {
         this.javaBinary = Path.of(System.getProperty("java.home"), "bin", "java").toString();
         this.classPath = classPath;
         this.vmOptions = List.copyOf(vmOptions);
         this.displaySink = displaySink;
+        this.stdin = stdin;
+    }
+
+    /** Answers the agent's standard input requests. */
+    @FunctionalInterface
+    public interface LineSource {
+        /** One line without its line end; an exception's message reaches the cell's read. */
+        String readLine() throws IOException;
     }
 
     @Override
@@ -79,18 +89,22 @@ public final class AgentLauncher implements ExecutionControlProvider {
                     .start();
             Socket commands;
             Socket stop;
+            Socket input;
             try {
                 commands = listener.accept();
                 stop = listener.accept();
+                input = listener.accept();
             } catch (IOException e) {
                 process.destroyForcibly();
                 throw new IOException("the JShell agent JVM did not connect within 30 s (" + String.join(" ", command.subList(0, 1)) + "): " + e.getMessage(), e);
             }
             commands.setTcpNoDelay(true);
             stop.setTcpNoDelay(true);
+            input.setTcpNoDelay(true);
+            serveInput(input);
             OutputStream stopOut = stop.getOutputStream();
             Map<String, OutputStream> outputs = Map.of("out", env.userOut(), "err", env.userErr(), DISPLAY_CHANNEL, displaySink);
-            Map<String, InputStream> inputs = Map.of("in", env.userIn());
+            Map<String, InputStream> inputs = Map.of(); // System.in goes over the input connection
             AgentConnection made = new AgentConnection(process, stop, stopOut);
             // buffered: the agent's output arrives in packets of at most 127 bytes, read a few bytes at a time
             ExecutionControl control = Util.remoteInputOutput(new java.io.BufferedInputStream(commands.getInputStream(), 1 << 16),
@@ -101,5 +115,30 @@ public final class AgentLauncher implements ExecutionControlProvider {
             connection = made;
             return control;
         }
+    }
+
+    /** Answers each input request of the agent with one line from {@link #stdin}, until the agent is gone. */
+    private void serveInput(Socket input) throws IOException {
+        java.io.DataInputStream requests = new java.io.DataInputStream(input.getInputStream());
+        java.io.DataOutputStream answers = new java.io.DataOutputStream(new java.io.BufferedOutputStream(input.getOutputStream()));
+        Thread t = new Thread(() -> {
+            try (input) {
+                while (true) {
+                    int sequence = requests.readInt();
+                    String line = null;
+                    String failure = null;
+                    try {
+                        line = stdin.readLine();
+                    } catch (IOException | RuntimeException e) {
+                        failure = String.valueOf(e.getMessage());
+                    }
+                    StdinProtocol.writeAnswer(answers, sequence, line, failure);
+                }
+            } catch (IOException e) {
+                // the agent ended
+            }
+        }, "loopledger-stdin-server");
+        t.setDaemon(true);
+        t.start();
     }
 }

@@ -18,7 +18,8 @@ import java.util.function.Consumer;
  *
  * <p>Arguments: the loopback port of the launcher. The agent opens two connections to it: the JShell
  * command stream (with {@code TCP_NODELAY}, which alone takes a trivial snippet from about 200 ms to
- * about 25 ms) and a stop channel on which each byte means "stop the running snippet".
+ * about 25 ms), a stop channel on which each byte means "stop the running snippet", and an input
+ * connection for {@code System.in} ({@link StdinProtocol}).
  * Standard output, standard error and the display channel are multiplexed on the command stream by
  * {@link Util#forwardExecutionControlAndIO}, so their order is the order in which the cell wrote them.
  *
@@ -39,6 +40,9 @@ public final class AgentMain {
         commands.setTcpNoDelay(true);
         Socket stop = new Socket(loopback, port);
         stop.setTcpNoDelay(true);
+        Socket input = new Socket(loopback, port);
+        input.setTcpNoDelay(true);
+        System.setIn(new AgentStdin(input));
         AgentControl control = new AgentControl();
         Thread stopper = new Thread(() -> listenForStops(stop, control), "loopledger-stop");
         stopper.setDaemon(true);
@@ -50,7 +54,8 @@ public final class AgentMain {
                 "out", st -> System.setOut(new PrintStream(st, true, StandardCharsets.UTF_8)),
                 "err", st -> System.setErr(new PrintStream(st, true, StandardCharsets.UTF_8)),
                 AgentLauncher.DISPLAY_CHANNEL, DisplayChannel::install);
-        Map<String, Consumer<InputStream>> inputs = Map.of("in", System::setIn);
+        // System.in is ours (AgentStdin, one line per request), not JShell's byte-by-byte remote input
+        Map<String, Consumer<InputStream>> inputs = Map.of();
         // Buffered: JShell's multiplexer writes output in packets of at most 127 bytes and flushes its
         // delegate at the end of every write, so the buffer only turns a write's packets into one system call.
         Util.forwardExecutionControlAndIO(control, new BufferedInputStream(commands.getInputStream(), 1 << 16),
