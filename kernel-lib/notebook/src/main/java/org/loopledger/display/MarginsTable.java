@@ -194,7 +194,7 @@ public final class MarginsTable implements Displayable {
 
     private List<String> warnings() {
         List<String> w = new ArrayList<>();
-        for (Row r : rows) for (String s : r.margins().warnings()) w.add(label(r) + ": " + s);
+        for (Row r : rows) for (var s : r.margins().warnings()) w.add(label(r) + ": " + s.message());
         return w;
     }
 
