@@ -7,8 +7,6 @@ import java.net.URI;
 import java.net.URISyntaxException;
 import java.net.URL;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.FileSystem;
-import java.nio.file.FileSystems;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -160,7 +158,12 @@ final class SourceDocs {
             if (url != null) {
                 URI uri = url.toURI();
                 if ("jar".equals(uri.getScheme())) {
-                    try (FileSystem fs = FileSystems.newFileSystem(uri, Map.of())) { walk(fs.getPath(ROOT), m); }
+                    java.net.JarURLConnection c = (java.net.JarURLConnection) url.openConnection();
+                    c.setUseCaches(false);
+                    try (java.util.jar.JarFile jar = c.getJarFile()) {
+                        jar.stream().map(java.util.jar.JarEntry::getName).filter(e -> e.startsWith(ROOT + "/") && e.endsWith(".java"))
+                                .forEach(e -> add(m, e));
+                    }
                 } else {
                     Path dir = Path.of(uri).getParent().getParent();
                     walk(dir, m);
@@ -174,13 +177,14 @@ final class SourceDocs {
         return filesBySimpleName;
     }
 
+    private static void add(Map<String, List<String>> m, String resource) {
+        String simple = resource.substring(resource.lastIndexOf('/') + 1).replace(".java", "");
+        m.computeIfAbsent(simple, k -> new ArrayList<>()).add(resource);
+    }
+
     private static void walk(Path root, Map<String, List<String>> m) throws IOException {
         try (Stream<Path> s = Files.walk(root)) {
-            s.filter(p -> p.toString().endsWith(".java")).forEach(p -> {
-                String rel = root.relativize(p).toString().replace('\\', '/');
-                String simple = p.getFileName().toString().replace(".java", "");
-                m.computeIfAbsent(simple, k -> new ArrayList<>()).add(ROOT + "/" + rel);
-            });
+            s.filter(p -> p.toString().endsWith(".java")).forEach(p -> add(m, ROOT + "/" + root.relativize(p).toString().replace('\\', '/')));
         }
     }
 
