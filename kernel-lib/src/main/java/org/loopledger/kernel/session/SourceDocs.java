@@ -67,7 +67,10 @@ final class SourceDocs {
         Declaration byName = null;
         for (Declaration d : decls) {
             if (!d.owner.equals(owner) || !d.name.equals(t.member)) continue;
-            if (t.parameters == null ? d.kind == Kind.FIELD : d.kind == Kind.METHOD && d.parameterTypes.equals(t.parameters)) return Optional.of(d.doc);
+            // no parameters: a field or an enum constant (which may carry arguments)
+            if (t.parameters == null ? d.kind != Kind.TYPE && d.kind != Kind.RECORD : d.kind == Kind.METHOD && d.parameterTypes.equals(t.parameters)) {
+                return Optional.of(d.doc);
+            }
             if (byName == null && t.parameters != null && d.kind == Kind.METHOD && d.parameterTypes.size() == t.parameters.size()) byName = d;
         }
         if (byName != null) return Optional.of(byName.doc);
@@ -218,6 +221,11 @@ final class SourceDocs {
                 int end = src.indexOf("*/", i + 2);
                 end = end < 0 ? n : end + 2;
                 if (i + 2 < n && src.charAt(i + 2) == '*' && !(i + 3 < n && src.charAt(i + 3) == '/')) {
+                    if (pendingDoc != null && !header.toString().isBlank()) { // an enum constant before it: "/** a */ A, /** b */ B"
+                        Declaration d = declaration(header.toString().replaceAll(",\\s*$", ""), typeStack.isEmpty() ? "" : typeStack.get(typeStack.size() - 1)[0],
+                                DocComment.parse(pendingDoc));
+                        if (d != null) out.add(d);
+                    }
                     pendingDoc = src.substring(i, end);
                     header.setLength(0);
                     parens = 0;
@@ -242,10 +250,11 @@ final class SourceDocs {
             boolean end = parens == 0 && (c == '{' || c == ';' || c == '=' || c == '}');
             if (!end) { header.append(c); continue; }
             String h = header.toString();
-            if (pendingDoc != null && c != '}') {
+            if (pendingDoc != null && (c != '}' || !h.isBlank())) { // '}' ends the last enum constant of "A, B }"
                 Declaration d = declaration(h, typeStack.isEmpty() ? "" : typeStack.get(typeStack.size() - 1)[0], DocComment.parse(pendingDoc));
                 if (d != null) out.add(d);
             }
+            String docOfDeclarators = pendingDoc;
             pendingDoc = null;
             if (c == '{') {
                 depth++;
@@ -265,6 +274,7 @@ final class SourceDocs {
                     else if (x == '{') b++;
                     else if (x == '}') { if (b == 0) { i--; break; } b--; }
                     else if (x == ';' && p == 0 && b == 0) break;
+                    else if (x == ',' && p == 0 && b == 0 && !inGenerics(src, i)) { pendingDoc = docOfDeclarators; break; } // "A = 1, B = 2;" share the doc
                 }
             }
             header.setLength(0);
@@ -288,9 +298,19 @@ final class SourceDocs {
             String member = name.group(1);
             return new Declaration(owner, member, Kind.METHOD, params, doc); // a constructor is a method named as its type
         }
-        String decl = h.split(",")[0].strip();
+        String decl = stripGenerics(h).split(",")[0].strip();
         Matcher name = MEMBER_NAME.matcher(decl);
         return name.find() ? new Declaration(owner, name.group(1), Kind.FIELD, List.of(), doc) : null;
+    }
+
+    /** Whether the comma at {@code i} sits inside angle brackets ({@code new HashMap<String, Long>()}), judged on its line. */
+    private static boolean inGenerics(String src, int i) {
+        int depth = 0;
+        for (int j = src.lastIndexOf('\n', i) + 1; j < i; j++) {
+            if (src.charAt(j) == '<') depth++;
+            else if (src.charAt(j) == '>') depth--;
+        }
+        return depth > 0;
     }
 
     private static String stripAnnotations(String h) {
