@@ -16,6 +16,7 @@ record DocComment(String description, List<Tag> params, String returns, List<Tag
     /** A block tag with a name ({@code @param lowHz the lower edge}). */
     record Tag(String name, String text) {}
 
+    private static final Pattern NAME = Pattern.compile("<?[A-Za-z_$][\\w$]*>?");
     private static final Pattern BLOCK_TAG = Pattern.compile("(?m)^\\s*@(param|return|returns|throws|exception|see|since|author|deprecated|implNote|apiNote|implSpec)\\b");
 
     /** Parses the raw comment ({@code /** ... *}{@code /}, delimiters included or not). */
@@ -43,7 +44,9 @@ record DocComment(String description, List<Tag> params, String returns, List<Tag
             switch (kind) {
                 case "param", "throws", "exception" -> {
                     String[] nameAndText = rest.split("\\s+", 2);
-                    Tag t = new Tag(nameAndText[0], nameAndText.length > 1 ? nameAndText[1] : "");
+                    Matcher id = NAME.matcher(nameAndText[0]);
+                    String name = id.lookingAt() ? id.group() : nameAndText[0]; // "@param fMinHz, fMaxHz ...": javac takes the identifier
+                    Tag t = new Tag(name, nameAndText.length > 1 ? nameAndText[1] : "");
                     (kind.equals("param") ? params : throwsTags).add(t);
                 }
                 case "return", "returns" -> returns = rest;

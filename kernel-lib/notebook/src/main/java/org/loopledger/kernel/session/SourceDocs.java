@@ -7,8 +7,6 @@ import java.net.URI;
 import java.net.URISyntaxException;
 import java.net.URL;
 import java.nio.charset.StandardCharsets;
-import java.nio.file.FileSystem;
-import java.nio.file.FileSystems;
 import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.ArrayList;
@@ -69,7 +67,10 @@ final class SourceDocs {
         Declaration byName = null;
         for (Declaration d : decls) {
             if (!d.owner.equals(owner) || !d.name.equals(t.member)) continue;
-            if (t.parameters == null ? d.kind == Kind.FIELD : d.kind == Kind.METHOD && d.parameterTypes.equals(t.parameters)) return Optional.of(d.doc);
+            // no parameters: a field or an enum constant (which may carry arguments)
+            if (t.parameters == null ? d.kind != Kind.TYPE && d.kind != Kind.RECORD : d.kind == Kind.METHOD && d.parameterTypes.equals(t.parameters)) {
+                return Optional.of(d.doc);
+            }
             if (byName == null && t.parameters != null && d.kind == Kind.METHOD && d.parameterTypes.size() == t.parameters.size()) byName = d;
         }
         if (byName != null) return Optional.of(byName.doc);
@@ -160,7 +161,12 @@ final class SourceDocs {
             if (url != null) {
                 URI uri = url.toURI();
                 if ("jar".equals(uri.getScheme())) {
-                    try (FileSystem fs = FileSystems.newFileSystem(uri, Map.of())) { walk(fs.getPath(ROOT), m); }
+                    java.net.JarURLConnection c = (java.net.JarURLConnection) url.openConnection();
+                    c.setUseCaches(false);
+                    try (java.util.jar.JarFile jar = c.getJarFile()) {
+                        jar.stream().map(java.util.jar.JarEntry::getName).filter(e -> e.startsWith(ROOT + "/") && e.endsWith(".java"))
+                                .forEach(e -> add(m, e));
+                    }
                 } else {
                     Path dir = Path.of(uri).getParent().getParent();
                     walk(dir, m);
@@ -174,13 +180,14 @@ final class SourceDocs {
         return filesBySimpleName;
     }
 
+    private static void add(Map<String, List<String>> m, String resource) {
+        String simple = resource.substring(resource.lastIndexOf('/') + 1).replace(".java", "");
+        m.computeIfAbsent(simple, k -> new ArrayList<>()).add(resource);
+    }
+
     private static void walk(Path root, Map<String, List<String>> m) throws IOException {
         try (Stream<Path> s = Files.walk(root)) {
-            s.filter(p -> p.toString().endsWith(".java")).forEach(p -> {
-                String rel = root.relativize(p).toString().replace('\\', '/');
-                String simple = p.getFileName().toString().replace(".java", "");
-                m.computeIfAbsent(simple, k -> new ArrayList<>()).add(ROOT + "/" + rel);
-            });
+            s.filter(p -> p.toString().endsWith(".java")).forEach(p -> add(m, ROOT + "/" + root.relativize(p).toString().replace('\\', '/')));
         }
     }
 
@@ -214,6 +221,11 @@ final class SourceDocs {
                 int end = src.indexOf("*/", i + 2);
                 end = end < 0 ? n : end + 2;
                 if (i + 2 < n && src.charAt(i + 2) == '*' && !(i + 3 < n && src.charAt(i + 3) == '/')) {
+                    if (pendingDoc != null && !header.toString().isBlank()) { // an enum constant before it: "/** a */ A, /** b */ B"
+                        Declaration d = declaration(header.toString().replaceAll(",\\s*$", ""), typeStack.isEmpty() ? "" : typeStack.get(typeStack.size() - 1)[0],
+                                DocComment.parse(pendingDoc));
+                        if (d != null) out.add(d);
+                    }
                     pendingDoc = src.substring(i, end);
                     header.setLength(0);
                     parens = 0;
@@ -238,10 +250,11 @@ final class SourceDocs {
             boolean end = parens == 0 && (c == '{' || c == ';' || c == '=' || c == '}');
             if (!end) { header.append(c); continue; }
             String h = header.toString();
-            if (pendingDoc != null && c != '}') {
+            if (pendingDoc != null && (c != '}' || !h.isBlank())) { // '}' ends the last enum constant of "A, B }"
                 Declaration d = declaration(h, typeStack.isEmpty() ? "" : typeStack.get(typeStack.size() - 1)[0], DocComment.parse(pendingDoc));
                 if (d != null) out.add(d);
             }
+            String docOfDeclarators = pendingDoc;
             pendingDoc = null;
             if (c == '{') {
                 depth++;
@@ -261,6 +274,7 @@ final class SourceDocs {
                     else if (x == '{') b++;
                     else if (x == '}') { if (b == 0) { i--; break; } b--; }
                     else if (x == ';' && p == 0 && b == 0) break;
+                    else if (x == ',' && p == 0 && b == 0 && !inGenerics(src, i)) { pendingDoc = docOfDeclarators; break; } // "A = 1, B = 2;" share the doc
                 }
             }
             header.setLength(0);
@@ -284,9 +298,19 @@ final class SourceDocs {
             String member = name.group(1);
             return new Declaration(owner, member, Kind.METHOD, params, doc); // a constructor is a method named as its type
         }
-        String decl = h.split(",")[0].strip();
+        String decl = stripGenerics(h).split(",")[0].strip();
         Matcher name = MEMBER_NAME.matcher(decl);
         return name.find() ? new Declaration(owner, name.group(1), Kind.FIELD, List.of(), doc) : null;
+    }
+
+    /** Whether the comma at {@code i} sits inside angle brackets ({@code new HashMap<String, Long>()}), judged on its line. */
+    private static boolean inGenerics(String src, int i) {
+        int depth = 0;
+        for (int j = src.lastIndexOf('\n', i) + 1; j < i; j++) {
+            if (src.charAt(j) == '<') depth++;
+            else if (src.charAt(j) == '>') depth--;
+        }
+        return depth > 0;
     }
 
     private static String stripAnnotations(String h) {
