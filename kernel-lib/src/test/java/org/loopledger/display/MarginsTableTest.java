@@ -130,6 +130,21 @@ class MarginsTableTest {
     }
 
     @Test
+    void anMsPeakAtTheEdgeOfTheMeasuredBandIsNotCalledMet() {
+        // |S| of the type-1 loop rises with frequency below its peak (|S| ~ w at low w, peak near 1 rad/s by the definition
+        // search above), so measured from 0.05 to 0.4 rad/s its largest value sits at the upper band edge.
+        double[] w = FrequencyGrid.logRadPerS(0.05, 0.4, 100);
+        Frf model = Frf.ofModel(TYPE1, w);
+        double[] re = new double[w.length], im = new double[w.length];
+        for (int i = 0; i < w.length; i++) { re[i] = model.realAt(i); im[i] = model.imagAt(i); }
+        assertTrue(msByDefinition(TYPE1)[1] * 2 * Math.PI > 0.4, "the true peak lies above the band");
+        MarginsTable t = MarginsTable.builder().row("case", "loop", Frf.ofParts(w, re, im)).spec(Spec.builder().maxSensitivityPeak(2).build()).build();
+        String v = t.worstSensitivityPeak().verdict();
+        assertFalse(v.startsWith("meets"), v);
+        assertTrue(v.contains("edge of the measured band"), v);
+    }
+
+    @Test
     void otherLimitsOfTheSpecAreNamedAsNotChecked() {
         Spec spec = Spec.builder().minPhaseMarginDeg(45).minBandwidthHz(20).build();
         String text = MarginsTable.of(twoCases(), spec).toString();
