@@ -141,7 +141,7 @@ class MarginsTableTest {
         MarginsTable t = MarginsTable.builder().row("case", "loop", Frf.ofParts(w, re, im)).spec(Spec.builder().maxSensitivityPeak(2).build()).build();
         String v = t.worstSensitivityPeak().verdict();
         assertFalse(v.startsWith("meets"), v);
-        assertTrue(v.contains("edge of the measured band"), v);
+        assertTrue(v.contains("edge of the analysed band"), v);
     }
 
     @Test
