@@ -163,6 +163,19 @@ class MarginsTableTest {
     }
 
     @Test
+    void tablesAndVerdictsSurviveTheRecordSanitiser() {
+        MimeBundle b = Bundles.of(MarginsTable.of(twoCases(), Spec.builder().minPhaseMarginDeg(60).build()));
+        var nb = new org.loopledger.notebook.Notebook(5, "{}", List.of(new org.loopledger.notebook.Cell.Code("m", "MarginsTable.of(cases, spec)", 1,
+                List.of(new org.loopledger.notebook.Output.ExecuteResult(1, b.data(), Map.of())), "{}")));
+        Document d = Jsoup.parse(org.loopledger.notebook.RecordRenderer.render(nb,
+                new org.loopledger.notebook.RecordInfo("m.ipynb", "2026-01-01", "0", "17", List.of())));
+        assertEquals("67.6", MarginsRendererTest.row(MarginsRendererTest.table(d, "Margins of every loop"), "empty").get(3));
+        var worst = MarginsRendererTest.table(d, "Worst case over the rows");
+        assertTrue(MarginsRendererTest.row(worst, "phase margin").get(3).startsWith("MISSED by "), worst.toString());
+        assertFalse(d.select("tr.fail").isEmpty(), "the record keeps the fail class on a missed row");
+    }
+
+    @Test
     void emptyTableIsRefusedWithTheFix() {
         var e = assertThrows(IllegalArgumentException.class, () -> MarginsTable.builder().build());
         assertTrue(e.getMessage().contains("row(loadCase, loop, loopGain)"));
