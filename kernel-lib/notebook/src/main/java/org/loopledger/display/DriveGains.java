@@ -127,7 +127,7 @@ public final class DriveGains implements Displayable {
         };
         String axis = motion == Motion.LINEAR ? "linear axis" : !Double.isNaN(screwLeadM)
                 ? "rotary motor on a screw, lead " + Units.g4(screwLeadM * 1e3) + " mm" : "rotary axis";
-        return what + ", " + axis + ", plant input in " + inputUnit;
+        return what + ", " + axis + ", plant input " + (inputUnit.equals("A") ? "taken as a current in A" : "in " + inputUnit);
     }
 
     HtmlTable table() {

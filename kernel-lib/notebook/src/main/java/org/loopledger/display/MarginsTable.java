@@ -129,7 +129,13 @@ public final class MarginsTable implements Displayable {
         if (limit.isEmpty()) return new WorstMargin(figure, worst, unit, lc, loop, at, limit, spec == null ? "" : "no limit in the spec", false);
         double lim = limit.getAsDouble();
         String limText = (lowerIsWorse ? "min " : "max ") + format(lim, unit);
-        String uncheckedText = unchecked == 0 ? "" : "; not checked on " + unchecked + (unchecked == 1 ? " loop" : " loops") + " (" + noneWhy + " in the measured band)";
+        int atEdge = 0; // Ms only: a peak at the edge of a measured band may be lower than the true peak outside it
+        if (!lowerIsWorse) for (Row r : rows) if (r.margins().measured() && r.margins().sensitivityPeak().atBandEdge()) atEdge++;
+        String uncheckedText = unchecked == 0 ? "" : "; not checked on " + unchecked + (unchecked == 1 ? " loop" : " loops") + " (" + noneWhy + " in the analysed band)";
+        if (atEdge > 0) {
+            uncheckedText += "; on " + atEdge + (atEdge == 1 ? " loop" : " loops") + " the peak is at the edge of the analysed band, so the true Ms may be higher";
+            unchecked += atEdge;
+        }
         if (worstRow == null) {
             return new WorstMargin(figure, worst, unit, lc, loop, at, limit, "limit " + limText + " not checked: " + noneWhy + " in band on any loop", false);
         }

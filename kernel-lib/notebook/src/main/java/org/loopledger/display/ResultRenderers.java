@@ -1,9 +1,7 @@
 package org.loopledger.display;
 
 import org.loopledger.analysis.Margins;
-import org.loopledger.control.BiquadCoefficients;
 import org.loopledger.control.CoefficientTable;
-import org.loopledger.control.Filter;
 import org.loopledger.control.PivParameters;
 import org.loopledger.ident.fit.BandQuality;
 import org.loopledger.ident.fit.FitResult;
@@ -11,8 +9,6 @@ import org.loopledger.ident.fit.FitWarning;
 import org.loopledger.ident.fit.RigidBodyFit;
 import org.loopledger.ident.fit.TwoMassFit;
 import org.loopledger.ident.fit.ParameterEstimate;
-import org.loopledger.lti.Motion;
-import org.loopledger.lti.Units;
 import org.loopledger.sim.Excitation;
 import org.loopledger.sim.ResponseMetrics;
 import org.loopledger.tune.LoadCaseFigures;
@@ -130,8 +126,8 @@ public final class ResultRenderers {
         }
         DriveGains gains = DriveGains.of(r.piv(), r.motion());
         gains.table().appendTo(h);
-        FilterTable filters = tuningFilters(r);
-        filters.table().appendTo(h);
+        if (r.filters().isEmpty()) h.append("<p>Filters on the current command: none</p>");
+        else tuningFilters(r).table().appendTo(h);
         HtmlTable c = HtmlTable.of("Achieved figures per load case (independent re-analysis)", "Load case", "Velocity crossover (Hz)",
                 "Velocity PM (deg)", "Velocity GM (dB)", "Velocity Ms", "Plant-input Ms", "Plant-input PM (deg)", "Position crossover (Hz)", "Position PM (deg)");
         for (LoadCaseFigures f : r.cases()) {
@@ -161,7 +157,8 @@ public final class ResultRenderers {
     static String tuningText(TuningResult r) {
         StringBuilder t = new StringBuilder(r.toString()).append('\n');
         t.append(DriveGains.of(r.piv(), r.motion()).table().toText());
-        if (!r.filters().isEmpty()) t.append(tuningFilters(r).table().toText());
+        if (r.filters().isEmpty()) t.append("Filters on the current command: none\n");
+        else t.append(tuningFilters(r).table().toText());
         if (!r.trace().isEmpty()) {
             t.append("search trace:\n");
             for (String s : r.trace()) t.append("  ").append(s).append('\n');

@@ -99,13 +99,13 @@ class LinearAxisUnitsTest {
         assertTrue(text.contains("per m/s") && text.contains("per mm/s") && text.contains("(m/min)/mm"), text);
         assertFalse(text.contains("rad"), text);
         Document d = Jsoup.parse(Bundles.of(t).get(MimeBundle.TEXT_HTML).orElseThrow());
-        List<String> kv1 = row(d, "Velocity gain Kv", 0), kv2 = row(d, "Velocity gain Kv", 1), kp2 = row(d, "Position gain Kp", 1);
-        assertEquals("plant-input units per m/s", kv1.get(2));
-        assertEquals("plant-input units per mm/s", kv2.get(2));
+        List<String> kv1 = row(d, "velocity gain Kv", 0), kv2 = row(d, "velocity gain Kv", 1), kp2 = row(d, "position gain Kp", 1);
+        assertEquals("A/(m/s)", kv1.get(2));
+        assertEquals("A/(mm/s)", kv2.get(2));
         assertEquals("(m/min)/mm", kp2.get(2));
-        // 4 significant digits in a cell
-        assertEquals(kv / 1000, Double.parseDouble(kv2.get(1)), 5e-4 * kv / 1000);
-        assertEquals(kp * 60 / 1000, Double.parseDouble(kp2.get(1)), 5e-4 * kp * 60 / 1000);
+        // 6 significant digits in a drive-parameter cell
+        assertEquals(kv / 1000, Double.parseDouble(kv2.get(1)), 5e-6 * kv / 1000);
+        assertEquals(kp * 60 / 1000, Double.parseDouble(kp2.get(1)), 5e-6 * kp * 60 / 1000);
         assertFalse(d.text().contains("rad"), d.text());
         assertEquals(PivParameters.of(t.piv(), Motion.LINEAR), t.driveParameters());
 

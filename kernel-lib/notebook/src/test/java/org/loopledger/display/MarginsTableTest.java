@@ -130,6 +130,21 @@ class MarginsTableTest {
     }
 
     @Test
+    void anMsPeakAtTheEdgeOfTheMeasuredBandIsNotCalledMet() {
+        // |S| of the type-1 loop rises with frequency below its peak (|S| ~ w at low w, peak near 1 rad/s by the definition
+        // search above), so measured from 0.05 to 0.4 rad/s its largest value sits at the upper band edge.
+        double[] w = FrequencyGrid.logRadPerS(0.05, 0.4, 100);
+        Frf model = Frf.ofModel(TYPE1, w);
+        double[] re = new double[w.length], im = new double[w.length];
+        for (int i = 0; i < w.length; i++) { re[i] = model.realAt(i); im[i] = model.imagAt(i); }
+        assertTrue(msByDefinition(TYPE1)[1] * 2 * Math.PI > 0.4, "the true peak lies above the band");
+        MarginsTable t = MarginsTable.builder().row("case", "loop", Frf.ofParts(w, re, im)).spec(Spec.builder().maxSensitivityPeak(2).build()).build();
+        String v = t.worstSensitivityPeak().verdict();
+        assertFalse(v.startsWith("meets"), v);
+        assertTrue(v.contains("edge of the analysed band"), v);
+    }
+
+    @Test
     void otherLimitsOfTheSpecAreNamedAsNotChecked() {
         Spec spec = Spec.builder().minPhaseMarginDeg(45).minBandwidthHz(20).build();
         String text = MarginsTable.of(twoCases(), spec).toString();
@@ -145,6 +160,19 @@ class MarginsTableTest {
         assertFalse(a.contains("@"), "no identity hash codes");
         assertTrue(a.lines().anyMatch(l -> l.startsWith("  load case  loop")), a);
         assertTrue(a.contains("worst phase margin: "), a);
+    }
+
+    @Test
+    void tablesAndVerdictsSurviveTheRecordSanitiser() {
+        MimeBundle b = Bundles.of(MarginsTable.of(twoCases(), Spec.builder().minPhaseMarginDeg(60).build()));
+        var nb = new org.loopledger.notebook.Notebook(5, "{}", List.of(new org.loopledger.notebook.Cell.Code("m", "MarginsTable.of(cases, spec)", 1,
+                List.of(new org.loopledger.notebook.Output.ExecuteResult(1, b.data(), Map.of())), "{}")));
+        Document d = Jsoup.parse(org.loopledger.notebook.RecordRenderer.render(nb,
+                new org.loopledger.notebook.RecordInfo("m.ipynb", "2026-01-01", "0", "17", List.of())));
+        assertEquals("67.6", MarginsRendererTest.row(MarginsRendererTest.table(d, "Margins of every loop"), "empty").get(3));
+        var worst = MarginsRendererTest.table(d, "Worst case over the rows");
+        assertTrue(MarginsRendererTest.row(worst, "phase margin").get(3).startsWith("MISSED by "), worst.toString());
+        assertFalse(d.select("tr.fail").isEmpty(), "the record keeps the fail class on a missed row");
     }
 
     @Test

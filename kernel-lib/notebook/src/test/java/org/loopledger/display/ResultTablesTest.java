@@ -63,6 +63,16 @@ class ResultTablesTest {
     }
 
     @Test
+    void aPeakAtTheEdgeOfTheGridIsMarked() {
+        // P = 1/(s(s+1)), C = 0.1: PS = 1/(s^2 + s + 0.1), overdamped (zeta = 1/(2 sqrt 0.1) = 1.58), so |PS| falls from 10 at DC
+        // and its largest value on the grid is at the lowest point, 1e-3 rad/s: 1/|0.1 + 0.001j - 1e-6| = 9.9995.
+        GangOfFour g = GangOfFour.of(MarginsTableTest.TYPE1, TransferFunction.gain(0.1), MarginsTableTest.GRID);
+        List<String> ps = row(html(Bundles.of(g)), "|PS|");
+        assertEquals(1 / Math.hypot(0.1 - 1e-6, 1e-3), Double.parseDouble(ps.get(2)), 1e-3);
+        assertTrue(ps.get(4).endsWith("(band edge)"), ps.toString());
+    }
+
+    @Test
     void fitsShowTheTruthAndWhetherTheIntervalCoversIt() {
         TwoMassParameters truth = new TwoMassParameters(2.0e-4, 1e-3, 400, 0.02, 250, 0.03, 60e-6);
         List<ParameterEstimate> est = List.of(new ParameterEstimate("inertia", "kg·m²", 2.02e-4, 1e-6, 2.0e-4, 2.04e-4),
