@@ -162,7 +162,7 @@ public final class ResultRenderers {
             h.append("</ol>");
         }
         h.append("<p>").append(r.evaluations()).append(" loop evaluations</p>");
-        return html(r.toString(), h.append("</div>").toString());
+        return html(TuningReportText.of(r), h.append("</div>").toString());
     }
 
     /** A found resonance: frequency, prominence, half-power width, damping estimate, and any warning about its resolution. */

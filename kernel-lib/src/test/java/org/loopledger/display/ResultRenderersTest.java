@@ -98,7 +98,7 @@ class ResultRenderersTest {
         List<String> c = row(d, "empty <carriage>");
         assertEquals(List.of("0.122", "67.6", "12.04"), c.subList(1, 4));
         assertEquals(List.of("0.3755", "44.06"), c.subList(7, 9));
-        assertEquals(r.toString(), b.plainText());
+        assertEquals(TuningReportText.of(r), b.plainText());
     }
 
     @Test
