@@ -135,22 +135,10 @@ public final class ClosedLoopStability {
     /** Notes and warnings (band coverage, grid resolution, marginal cases), structured. */
     public List<LoopWarning> notes() { return notes; }
 
+    /** One line: the verdict, how it was reached and the counts (the full report: {@code display.ClosedLoopStabilityText}). */
     @Override public String toString() {
-        StringBuilder b = new StringBuilder();
-        b.append("Closed loop ").append(stable ? "STABLE" : "UNSTABLE").append(" (")
-                .append(method == Method.CLOSED_LOOP_POLES ? "closed-loop poles" : "Nyquist criterion").append(")\n");
-        b.append("  open-loop unstable poles P = ").append(openLoopUnstablePoles).append(", clockwise encirclements of -1 N = ")
-                .append(clockwiseEncirclements).append(", closed-loop unstable poles Z = ").append(unstableClosedLoopPoles).append('\n');
-        if (!closedLoopPoles.isEmpty()) {
-            b.append("  closed-loop poles:");
-            for (Complex q : closedLoopPoles) {
-                b.append(' ').append(Units.g4(q.getReal()));
-                if (q.getImaginary() != 0) b.append(q.getImaginary() < 0 ? " - " : " + ").append(Units.g4(Math.abs(q.getImaginary()))).append('j');
-                b.append(';');
-            }
-            b.append('\n');
-        }
-        for (LoopWarning n : notes) b.append("  note: ").append(n.message()).append('\n');
-        return b.toString().stripTrailing();
+        return "Closed loop " + (stable ? "STABLE" : "UNSTABLE") + " (" + (method == Method.CLOSED_LOOP_POLES ? "closed-loop poles" : "Nyquist criterion")
+                + "): P = " + openLoopUnstablePoles + ", N = " + clockwiseEncirclements + ", Z = " + unstableClosedLoopPoles
+                + (notes.isEmpty() ? "" : ", " + notes.size() + (notes.size() == 1 ? " note" : " notes"));
     }
 }

@@ -122,16 +122,9 @@ public final class GangOfFour {
 
     public Optional<TransferFunction> noiseSensitivityModel() { return exact == null ? Optional.empty() : Optional.of(exact[3]); }
 
-    private static String peak(String name, Frf f) {
-        double[] m = f.magnitude();
-        int k = 0;
-        for (int i = 1; i < m.length; i++) if (m[i] > m[k]) k = i;
-        return "  peak |" + name + "| = " + Units.g4(m[k]) + " (" + Units.formatDb(20 * Math.log10(m[k])) + ") at " + Units.formatRadPerSAsHz(f.omegaAt(k)) + "\n";
-    }
-
+    /** One line: the grid (the peaks of each function: {@code display.GangOfFourText}). */
     @Override public String toString() {
-        return ("Gang of Four on " + s.size() + " points, " + Units.formatRadPerSAsHz(s.minOmegaRadPerS()) + " .. " + Units.formatRadPerSAsHz(s.maxOmegaRadPerS())
-                + (exact != null ? " (exact transfer functions available)" : "") + "\n"
-                + peak("S", s) + peak("T", t) + peak("PS", ps) + peak("CS", cs)).stripTrailing();
+        return "Gang of Four on " + s.size() + " points, " + Units.formatRadPerSAsHz(s.minOmegaRadPerS()) + " .. " + Units.formatRadPerSAsHz(s.maxOmegaRadPerS())
+                + (exact != null ? " (exact transfer functions available)" : "");
     }
 }

@@ -348,42 +348,10 @@ public final class Margins {
 
     private String none() { return measured ? "none in band" : "no crossover"; }
 
+    /** One line: where the figures come from, phase margin, gain margin and Ms (the full report: {@code display.MarginsReportText}). */
     @Override public String toString() {
-        StringBuilder b = new StringBuilder();
-        b.append("Margins (").append(source()).append(")\n");
-        b.append("  gain margin (increase): ").append(upperGainMargin().map(p -> Units.formatDb(p.gainMarginDb()) + " (x" + Units.g4(p.gainMarginRatio()) + ") at " + Units.formatRadPerSAsHz(p.omegaRadPerS())).orElse(none())).append('\n');
-        b.append("  gain margin (decrease): ").append(lowerGainMargin().map(p -> Units.formatDb(p.gainMarginDb()) + " (x" + Units.g4(p.gainMarginRatio()) + ") at " + Units.formatRadPerSAsHz(p.omegaRadPerS())).orElse(none())).append('\n');
-        b.append("  phase margin:           ").append(phaseMarginCrossover().map(g -> Units.formatDeg(g.phaseMarginDeg()) + " at " + Units.formatRadPerSAsHz(g.omegaRadPerS())).orElse(none())).append('\n');
-        b.append("  delay margin:           ").append(phaseMarginCrossover().isPresent() ? Units.formatSeconds(delayMarginS().getAsDouble())
-                + (delayMarginSamples().isPresent() ? " (" + Units.g4(delayMarginSamples().getAsDouble()) + " samples)" : "") : none()).append('\n');
-        b.append("  Ms = max|S|:            ").append(sensitivityPeak).append(", modulus margin 1/Ms = ").append(Units.g4(modulusMargin())).append('\n');
-        b.append("  Mt = max|T|:            ").append(complementaryPeak).append('\n');
-        b.append("  bandwidth (-3 dB of T): ").append(bandwidth).append('\n');
-        b.append("  open loop:              ").append(openLoopUnstablePoles.isPresent() ? openLoopUnstablePoles.getAsInt() + " unstable pole(s)" : "unstable poles not stated")
-                .append(", ").append(polesOnAxis).append(" on the stability boundary, net integrators ").append(netIntegrators).append('\n');
-        b.append("  gain crossovers (|L| = 1):");
-        if (gainCrossovers.isEmpty()) b.append(' ').append(none()).append('\n');
-        else {
-            b.append('\n').append("    ").append(Units.padRight("frequency", 14)).append(Units.padRight("phase", 14)).append(Units.padRight("PM", 14))
-                    .append(Units.padRight("delay margin", 16)).append("|1+L|\n");
-            for (GainCrossover g : gainCrossovers) {
-                b.append("    ").append(Units.padRight(Units.formatRadPerSAsHz(g.omegaRadPerS()), 14)).append(Units.padRight(Units.formatDeg(g.phaseDeg()), 14))
-                        .append(Units.padRight(Units.formatDeg(g.phaseMarginDeg()), 14)).append(Units.padRight(Units.formatSeconds(g.delayMarginS()), 16))
-                        .append(Units.g4(g.distanceToMinusOne())).append('\n');
-            }
-        }
-        b.append("  phase crossovers (phase = -180 deg + k 360 deg):");
-        if (phaseCrossovers.isEmpty()) b.append(' ').append(none()).append('\n');
-        else {
-            b.append('\n').append("    ").append(Units.padRight("frequency", 14)).append(Units.padRight("phase", 14)).append(Units.padRight("|L|", 12))
-                    .append(Units.padRight("GM", 24)).append("|1+L|\n");
-            for (PhaseCrossover p : phaseCrossovers) {
-                b.append("    ").append(Units.padRight(Units.formatRadPerSAsHz(p.omegaRadPerS()), 14)).append(Units.padRight(Units.formatDeg(p.phaseDeg()), 14))
-                        .append(Units.padRight(Units.g4(p.magnitude()), 12)).append(Units.padRight(Units.formatDb(p.gainMarginDb()) + " (x" + Units.g4(p.gainMarginRatio()) + ")", 24))
-                        .append(Units.g4(p.distanceToMinusOne())).append('\n');
-            }
-        }
-        for (LoopWarning w : warnings) b.append("  note: ").append(w.message()).append('\n');
-        return b.toString().stripTrailing();
+        return "Margins (" + source() + "): PM " + phaseMarginCrossover().map(g -> Units.formatDeg(g.phaseMarginDeg()) + " at " + Units.formatRadPerSAsHz(g.omegaRadPerS())).orElse(none())
+                + ", GM " + upperGainMargin().map(p -> Units.formatDb(p.gainMarginDb()) + " at " + Units.formatRadPerSAsHz(p.omegaRadPerS())).orElse(none())
+                + ", Ms " + Units.g4(sensitivityPeak.magnitude()) + (warnings.isEmpty() ? "" : ", " + warnings.size() + (warnings.size() == 1 ? " note" : " notes"));
     }
 }

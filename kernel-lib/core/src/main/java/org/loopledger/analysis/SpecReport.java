@@ -1,6 +1,5 @@
 package org.loopledger.analysis;
 
-import org.loopledger.lti.Units;
 import java.util.List;
 import java.util.OptionalDouble;
 
@@ -73,33 +72,8 @@ public record SpecReport(List<Row> rows, List<LoopWarning> warnings, String titl
     /** The requirements that fail. */
     public List<Row> failures() { return rows.stream().filter(r -> !r.pass()).toList(); }
 
-    /** A plain-text table: requirement, limit, achieved, frequency, verdict. */
+    /** One line: the title and the verdict (the table: {@code display.SpecReportText}). */
     @Override public String toString() {
-        String[] head = {"requirement", "limit", "achieved", "at", "result"};
-        int[] w = new int[head.length];
-        for (int i = 0; i < head.length; i++) w[i] = head[i].length();
-        String[][] cells = new String[rows.size()][];
-        for (int r = 0; r < rows.size(); r++) {
-            Row row = rows.get(r);
-            cells[r] = new String[] {row.requirement(), row.limit(), row.achieved(),
-                    row.frequencyHz().isPresent() ? org.loopledger.lti.Units.formatHz(row.frequencyHz().getAsDouble()) : "-",
-                    row.pass() ? "pass" : "FAIL"};
-            for (int i = 0; i < w.length; i++) w[i] = Math.max(w[i], cells[r][i].length());
-        }
-        StringBuilder b = new StringBuilder(title.isEmpty() ? "Spec check: " : "Spec check, " + title + ": ").append(passed() ? "all requirements met" : failures().size() + " of " + rows.size() + " requirements FAIL").append('\n');
-        line(b, head, w);
-        StringBuilder rule = new StringBuilder();
-        for (int i = 0; i < w.length; i++) rule.append("-".repeat(w[i])).append(i + 1 < w.length ? "  " : "");
-        b.append(rule).append('\n');
-        for (String[] c : cells) line(b, c, w);
-        for (LoopWarning x : warnings) b.append("note: ").append(x.message()).append('\n');
-        return b.toString().stripTrailing();
-    }
-
-    private static void line(StringBuilder b, String[] c, int[] w) {
-        for (int i = 0; i < c.length; i++) {
-            b.append(i + 1 < c.length ? Units.padRight(c[i], w[i] + 2) : c[i]);
-        }
-        b.append('\n');
+        return (title.isEmpty() ? "Spec check: " : "Spec check, " + title + ": ") + (passed() ? "all requirements met" : failures().size() + " of " + rows.size() + " requirements FAIL");
     }
 }

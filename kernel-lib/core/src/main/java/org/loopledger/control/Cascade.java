@@ -115,6 +115,29 @@ public final class Cascade {
         return new Cascade(Frf.ofModel(plantToVelocity, omegaRadPerS), plantToVelocity, piv, filters, timing);
     }
 
+    /**
+     * A drive running a parallel PID on the position error, through the PID's exact PIV form ({@link Pid#toPiv},
+     * {@link Pid#toPivNearestPositionGain}): the PIV, with the PID's derivative-filter low-pass appended to
+     * {@code filters}. {@link #controller()}, {@link #plantInputLoop()} and {@link #gangOfFour()} are the PID's own (its
+     * single-loop transfer function does not depend on which zero became K<sub>p</sub>); {@link #velocityLoop()} and
+     * {@link #positionLoop()} are those of the PIV form chosen (read {@link PidAsPiv#warnings()}). Exact for a continuous
+     * timing; for a sampled one the PIV's discrete form (backward-Euler integral) is evaluated, which is a drive running
+     * this PIV, not necessarily one running the PID with its own discretisation.
+     */
+    public static Cascade of(Frf plantToVelocity, PidAsPiv pid, FilterChain filters, DriveTiming timing) {
+        return of(plantToVelocity, pid.piv(), withLowPass(filters, pid), timing);
+    }
+
+    /** As {@link #of(Frf, PidAsPiv, FilterChain, DriveTiming)} for a continuous plant model evaluated on {@code omegaRadPerS}. */
+    public static Cascade of(TransferFunction plantToVelocity, PidAsPiv pid, FilterChain filters, DriveTiming timing, double[] omegaRadPerS) {
+        return of(plantToVelocity, pid.piv(), withLowPass(filters, pid), timing, omegaRadPerS);
+    }
+
+    private static FilterChain withLowPass(FilterChain filters, PidAsPiv pid) {
+        Objects.requireNonNull(filters, "filters");
+        return pid.lowPass().map(filters::then).orElse(filters);
+    }
+
     /** The same plant, filters and timing with other gains. */
     public Cascade withPiv(Piv other) { return new Cascade(plant, plantModel, other, filters, timing); }
 

@@ -76,15 +76,8 @@ public record NotchProposal(List<Resonance> resonances, Notch notch, TuningResul
         return a.worstVelocityCrossoverHz() > b.worstVelocityCrossoverHz();
     }
 
+    /** One line: the notch and whether it pays (the full report: {@code display.NotchProposalText}). */
     @Override public String toString() {
-        StringBuilder sb = new StringBuilder();
-        for (Resonance r : resonances) sb.append(r).append('\n');
-        sb.append("proposed ").append(notch).append('\n');
-        sb.append("tuned without the notch: ").append(without.toString().replace("\n", "\n  ")).append('\n');
-        sb.append("same gains, notch added:\n");
-        for (LoadCaseFigures f : sameGainsWithNotch) sb.append("    ").append(f).append('\n');
-        sb.append("re-tuned with the notch: ").append(with.toString().replace("\n", "\n  ")).append('\n');
-        sb.append(pays() ? "the notch pays: higher worst-case velocity crossover" : "the notch does not pay here: re-tuning with it gives no higher crossover");
-        return sb.toString();
+        return "proposed " + notch + ": " + (pays() ? "the notch pays: higher worst-case velocity crossover" : "the notch does not pay here: re-tuning with it gives no higher crossover");
     }
 }

@@ -112,15 +112,8 @@ public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, Tun
         return pm && gm && ms;
     }
 
-    @Override public String toString() {
-        StringBuilder sb = new StringBuilder();
-        sb.append(headline()).append(" — binding: ").append(bindingConstraint).append('\n');
-        sb.append("  ").append(piv.describe(motion)).append('\n');
-        sb.append("  filters: ").append(filters.isEmpty() ? "none" : filters.toString()).append('\n');
-        for (LoadCaseFigures c : cases) sb.append("  ").append(c).append('\n');
-        sb.append("  ").append(evaluations).append(" loop evaluations"); // not the wall time: the text must reproduce from run to run
-        return sb.toString();
-    }
+    /** One line: the verdict and the binding constraint (the full report: {@code display.TuningReportText}). */
+    @Override public String toString() { return headline() + " — binding: " + bindingConstraint; }
 
     /** The gains as a drive's parameter list in the axis' own units (rotary or linear). */
     public org.loopledger.control.PivParameters driveParameters() { return org.loopledger.control.PivParameters.of(piv, motion); }

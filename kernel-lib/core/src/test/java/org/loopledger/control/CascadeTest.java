@@ -181,6 +181,25 @@ class CascadeTest {
         }
     }
 
+    @Test void aPidRunsThroughItsPivFormWithTheSameControllerWhicheverZeroIsKp() {
+        // Definition (Pid Javadoc): C(s) = KP + KI/s + KD·s/(τs + 1); the exact PIV form times the low-pass at 1/τ equals it,
+        // so the controller on the position error and the plant-input loop are the PID's for either zero assignment, while
+        // the velocity loops differ (they depend on which zero is the integral corner).
+        double[] w = FrequencyGrid.logSpacedRadPerS(0.5, 5000, 400);
+        Pid pid = Pid.withTimeConstant(12, 150, 0.05, 2e-4);
+        FilterChain f = FilterChain.of(Notch.ofHz(400, 20, 100));
+        Frf expected = Frf.ofModel(pid.continuous().times(f.continuous()), w);
+        Cascade lower = Cascade.of(twoMassPlant(), pid.toPiv(ZeroAssignment.INTEGRAL_CORNER_IS_LOWER_ZERO), f, DriveTiming.continuous(), w);
+        Cascade upper = Cascade.of(twoMassPlant(), pid.toPiv(ZeroAssignment.POSITION_GAIN_IS_LOWER_ZERO), f, DriveTiming.continuous(), w);
+        // 1e-12: the PID's expanded numerator against the PIV's factors (the zeros come from a quadratic solved in
+        // double precision; measured 6e-15)
+        assertFrfEquals(expected, lower.controller(), 1e-12, "PID controller via the PIV form, lower zero as corner");
+        assertFrfEquals(expected, upper.controller(), 1e-12, "PID controller via the PIV form, lower zero as Kp");
+        assertFrfEquals(lower.plantInputLoop(), upper.plantInputLoop(), 1e-12, "plant-input loop independent of the assignment");
+        assertTrue(lower.velocityLoop().valueAt(0).subtract(upper.velocityLoop().valueAt(0)).abs() > 0.1 * lower.velocityLoop().valueAt(0).abs(),
+                "the velocity loops differ");
+    }
+
     @Test void controllerAgreesWithScipy() {
         PythonOracle.require("scipy", "numpy");
         // The PIV as one controller on the position error, with filters and drive effects, evaluated by Python from its

@@ -28,7 +28,7 @@ class TimeSpecTest {
         assertTrue(pass.passed(), pass.toString());
         assertFalse(fail.passed(), fail.toString());
         assertEquals(OVERSHOOT_PCT, fail.rows().get(0).achievedValue(), 1e-4);
-        assertTrue(fail.toString().contains("overshoot"), fail.toString());
+        assertTrue(fail.rows().get(0).requirement().contains("overshoot"), fail.toString());
     }
 
     // Hand derivation: 1 - e^{-t/τ} rises 10-90 % in τ ln 9 (219.7 ms at τ = 0.1 s) and settles into 2 % at τ ln 50 (391.2 ms).

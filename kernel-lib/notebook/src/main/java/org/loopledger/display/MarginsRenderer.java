@@ -11,14 +11,14 @@ import java.util.Optional;
 /**
  * {@link Margins} as HTML: a summary table (gain margins up and down, phase margin, delay margin, Ms,
  * peak |T|, bandwidth, each with its frequency), a table of every gain crossover and of every phase
- * crossover, and the warnings as a list; the plain text is the value's own {@code toString()}.
+ * crossover, and the warnings as a list; the plain text is {@link MarginsReportText}.
  * Units in the column headers (Hz, deg, dB, ms); all text escaped; deterministic.
  */
 public final class MarginsRenderer {
     private MarginsRenderer() {}
 
     public static MimeBundle render(Margins m) {
-        return MimeBundle.builder(m.toString()).put(MimeBundle.TEXT_HTML, html(m)).build();
+        return MimeBundle.builder(MarginsReportText.of(m)).put(MimeBundle.TEXT_HTML, html(m)).build();
     }
 
     public static String html(Margins m) {

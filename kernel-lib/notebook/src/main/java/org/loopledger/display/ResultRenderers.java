@@ -151,11 +151,12 @@ public final class ResultRenderers {
     }
 
     /**
-     * The tuning in plain text: the value's own summary (verdict, gains, filters, figures per load case), the gains
-     * in drive units, the filter coefficients, the search trace and the caution. No wall-clock time: it reproduces.
+     * The tuning in plain text: its report ({@link TuningReportText}: verdict, gains, filters, figures per load case),
+     * the gains in drive units, the filter coefficients, the search trace and the caution. No wall-clock time: it
+     * reproduces.
      */
     static String tuningText(TuningResult r) {
-        StringBuilder t = new StringBuilder(r.toString()).append('\n');
+        StringBuilder t = new StringBuilder(TuningReportText.of(r)).append('\n');
         t.append(DriveGains.of(r.piv(), r.motion()).table().toText());
         if (r.filters().isEmpty()) t.append("Filters on the current command: none\n");
         else t.append(tuningFilters(r).table().toText());

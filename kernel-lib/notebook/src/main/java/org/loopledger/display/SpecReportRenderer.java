@@ -4,7 +4,7 @@ import org.loopledger.analysis.SpecReport;
 
 /**
  * A {@link SpecReport} as an HTML pass/fail table (requirement, limit, achieved, frequency, result)
- * with the analysis warnings below, as its own plain-text table, and as the spec-report payload
+ * with the analysis warnings below, as a plain-text table ({@link SpecReportText}), and as the spec-report payload
  * ({@link SpecReportJson}) from which the record's closing summary lists every spec check.
  */
 public final class SpecReportRenderer {
@@ -16,7 +16,7 @@ public final class SpecReportRenderer {
     private SpecReportRenderer() {}
 
     public static MimeBundle render(SpecReport r) {
-        return MimeBundle.builder(r.toString()).put(MimeBundle.TEXT_HTML, html(r)).put(SpecReportJson.MIME, SpecReportJson.write(r)).build();
+        return MimeBundle.builder(SpecReportText.of(r)).put(MimeBundle.TEXT_HTML, html(r)).put(SpecReportJson.MIME, SpecReportJson.write(r)).build();
     }
 
     public static String html(SpecReport r) {

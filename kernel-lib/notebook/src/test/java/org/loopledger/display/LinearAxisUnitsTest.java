@@ -95,7 +95,7 @@ class LinearAxisUnitsTest {
         double kv = t.piv().velocity().velocityGain(), kp = t.piv().positionGainPerS();
         assertEquals(kvRigid, kv, 0.03 * kvRigid);
 
-        String text = t.toString();
+        String text = TuningReportText.of(t);
         assertTrue(text.contains("per m/s") && text.contains("per mm/s") && text.contains("(m/min)/mm"), text);
         assertFalse(text.contains("rad"), text);
         Document d = Jsoup.parse(Bundles.of(t).get(MimeBundle.TEXT_HTML).orElseThrow());

@@ -45,7 +45,7 @@ class MarginsRendererTest {
     void cubicLagShowsEveryFigureWithItsFrequency() {
         Margins m = Margins.of(CUBIC_LAG);
         MimeBundle b = Bundles.of(m);
-        assertEquals(m.toString(), b.plainText());
+        assertEquals(MarginsReportText.of(m), b.plainText());
         Document d = Jsoup.parse(b.get(MimeBundle.TEXT_HTML).orElseThrow());
         var summary = table(d, "Stability margins");
         assertEquals(List.of("Figure", "Value", "Unit", "At (Hz)"), summary.get(0));

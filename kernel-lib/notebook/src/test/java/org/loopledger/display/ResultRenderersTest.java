@@ -99,7 +99,7 @@ class ResultRenderersTest {
         List<String> c = row(d, "empty <carriage>");
         assertEquals(List.of("0.122", "67.6", "12.04"), c.subList(1, 4));
         assertEquals(List.of("0.3755", "44.06"), c.subList(7, 9));
-        assertTrue(b.plainText().startsWith(r.toString()), b.plainText());
+        assertTrue(b.plainText().startsWith(TuningReportText.of(r)), b.plainText());
         assertTrue(b.plainText().contains("  step <1>\n") && b.plainText().endsWith(org.loopledger.control.PivParameters.CAUTION), b.plainText());
     }
 

@@ -32,7 +32,7 @@ class SpecReportRendererTest {
         MimeBundle b = Bundles.of(r);
         assertEquals(List.of(MimeBundle.TEXT_PLAIN, MimeBundle.TEXT_HTML, SpecSummary.MIME), List.copyOf(b.data().keySet()));
         assertEquals(SpecSummary.MIME, SpecReportJson.MIME, "one format, one MIME type");
-        assertEquals(r.toString(), b.plainText());
+        assertEquals(SpecReportText.of(r), b.plainText());
         Document d = Jsoup.parse(b.get(MimeBundle.TEXT_HTML).orElseThrow());
         var rows = d.select("tbody tr");
         assertEquals(r.rows().size(), rows.size());
