@@ -186,6 +186,10 @@ class FigureLayoutTest {
         assertEquals("Bode plot: L", bode.title());
         XYSeries marker = bode.panels().get(0).getSeriesMap().get("crossover");
         assertTrue(marker.isShowInLegend());
+        // a marker without values sits on the first curve: |4e5/(j2π·100)²| = 4e5/(2π·100)² = 1.013 → 0.11 dB (by hand)
+        Figure onCurve = BodePlot.create().add("L", l).mark("crossover", 100, Double.NaN, Double.NaN).figure();
+        assertEquals(20 * Math.log10(4e5 / Math.pow(2 * Math.PI * 100, 2)), onCurve.panels().get(0).getSeriesMap().get("crossover").getYData()[0], 0.01);
+        assertEquals(-180, onCurve.panels().get(1).getSeriesMap().get("crossover").getYData()[0], 1e-6);
         assertTrue(NicholsPlot.of("L", l).title().contains("Nichols"));
         assertTrue(NyquistPlot.of("L", l).title().contains("Nyquist"));
         assertTrue(GangOfFourPlot.of("", l, l, l, l).title().contains("Gang of Four"));
