@@ -52,6 +52,17 @@ public final class BodePlot {
         return this;
     }
 
+    /** Row {@code row} of {@code curve} (hz, values...) at {@code hz}, linear in log frequency; NaN outside its band. */
+    private static double atHz(double[][] curve, int row, double hz) {
+        double[] f = curve[0], v = curve[row];
+        if (!(hz >= f[0] && hz <= f[f.length - 1])) return Double.NaN;
+        int k = java.util.Arrays.binarySearch(f, hz);
+        if (k >= 0) return v[k];
+        int hi = -k - 1, lo = hi - 1;
+        double t = Math.log(hz / f[lo]) / Math.log(f[hi] / f[lo]);
+        return v[lo] + t * (v[hi] - v[lo]);
+    }
+
     /** "Bode plot: " and the curves' labels, for a figure the user gave no title. */
     private String defaultTitle() {
         return "Bode plot: " + String.join(", ", curves.stream().map(Curve::label).distinct().toList());
@@ -70,7 +81,10 @@ public final class BodePlot {
         return add(label, Frf.ofModel(model, FrequencyGrid.forModelRadPerS(model)));
     }
 
-    /** Adds a marker drawn on both panels at {@code hz}, named in the legend (once per label). */
+    /**
+     * Adds a marker drawn on both panels at {@code hz}, named in the legend (once per label). A NaN magnitude or phase
+     * puts the marker on the first curve at {@code hz} (interpolated in log frequency).
+     */
     public BodePlot mark(String label, double hz, double magDb, double phaseDeg) {
         marks.add(new Mark(label, hz, magDb, phaseDeg));
         return this;
@@ -84,10 +98,12 @@ public final class BodePlot {
         ph.getStyler().setXAxisLogarithmic(true);
         ph.getStyler().setLegendVisible(false);
         boolean trendUnwrapped = false;
+        double[][] first = null; // hz, magnitude dB, display phase deg of the first curve, for markers without a value
         for (int i = 0; i < curves.size(); i++) {
             Curve c = curves.get(i);
             double[] f = c.frf().frequencyHz();
             PlotPhase.Branch branch = PlotPhase.alongTrendDeg(c.frf());
+            if (i == 0) first = new double[][] {f, c.frf().magnitudeDb(), branch.phaseDeg()};
             trendUnwrapped |= branch.differsFromPlainUnwrap();
             double[][] m = Decimation.forPanel(f, c.frf().magnitudeDb(), true, widthPx, panelHeightPx);
             double[][] p = Decimation.forPanel(f, branch.phaseDeg(), true, widthPx, panelHeightPx);
@@ -97,8 +113,10 @@ public final class BodePlot {
         java.util.Set<String> labelled = new java.util.HashSet<>();
         for (Mark k : marks) {
             boolean inLegend = labelled.add(k.label());
-            ChartStyle.markers(mag, k.label(), new double[] {k.hz()}, new double[] {k.magDb()}, Palette.BRICK, inLegend);
-            ChartStyle.markers(ph, k.label(), new double[] {k.hz()}, new double[] {k.phaseDeg()}, Palette.BRICK, false);
+            double m = Double.isNaN(k.magDb()) ? atHz(first, 1, k.hz()) : k.magDb();
+            double p = Double.isNaN(k.phaseDeg()) ? atHz(first, 2, k.hz()) : k.phaseDeg();
+            ChartStyle.markers(mag, k.label(), new double[] {k.hz()}, new double[] {m}, Palette.BRICK, inLegend);
+            ChartStyle.markers(ph, k.label(), new double[] {k.hz()}, new double[] {p}, Palette.BRICK, false);
         }
         // 0 dB and -180 deg mean something for a loop gain: drawn where the data's range comes to them, never widening it
         Figure f = Figure.column(title.isEmpty() ? defaultTitle() : title, List.of(mag, ph))

@@ -95,6 +95,14 @@ final class FigureDrawing {
                 for (String l : ya[i].labels()) labelW = Math.max(labelW, c.textWidth(l, TICK));
                 double off = PAD + (yTitle.isEmpty() ? 0 : 18) + labelW + 6;
                 leftOffset[i % f.columns()] = Math.max(leftOffset[i % f.columns()], off);
+                // room for the half of the last x tick label that reaches past the plot's right edge
+                Axis xProvisional = Axis.of(xr[i][0], xr[i][1], st.isXAxisLogarithmic(), rights[i] - ox - off, 64);
+                int last = xProvisional.major().length - 1;
+                if (last >= 0) {
+                    double reach = (1 - xProvisional.fraction(xProvisional.major()[last])) * (rights[i] - ox - off);
+                    double overflow = c.textWidth(xProvisional.labels()[last], TICK) / 2 - reach - 2;
+                    if (overflow > 0) rights[i] -= overflow;
+                }
             }
             // shared edges: left per column (widest labels), right per column, top per row
             double[] rightEdge = new double[f.columns()];
