@@ -147,12 +147,7 @@ public final class FitTable implements Displayable {
         /** A two-mass fit and the true parameters ({@code null} when unknown). */
         public Builder row(String label, TwoMassFit fit, TwoMassParameters truth) {
             Objects.requireNonNull(fit, "fit");
-            if (truth != null && truth.motion() != fit.estimate().motion()) {
-                throw new IllegalArgumentException("the truth is for a " + truth.motion().label() + " axis but the fit for a " + fit.estimate().motion().label() + " one");
-            }
-            entries.add(new Entry(Objects.requireNonNull(label, "label"), fit.fit(), fit.estimate().motion(),
-                    fit.fit().parameters().stream().map(p -> truthOf(p.name(), truth)).toList()));
-            return this;
+            return add(label, fit.fit(), fit.estimate().motion(), truth == null ? null : truth.motion(), name -> truthOf(name, truth));
         }
 
         public Builder row(String label, RigidBodyFit fit) { return row(label, fit, null); }
@@ -160,11 +155,14 @@ public final class FitTable implements Displayable {
         /** A rigid-body fit and the true parameters ({@code null} when unknown). */
         public Builder row(String label, RigidBodyFit fit, RigidBodyParameters truth) {
             Objects.requireNonNull(fit, "fit");
-            if (truth != null && truth.motion() != fit.estimate().motion()) {
-                throw new IllegalArgumentException("the truth is for a " + truth.motion().label() + " axis but the fit for a " + fit.estimate().motion().label() + " one");
+            return add(label, fit.fit(), fit.estimate().motion(), truth == null ? null : truth.motion(), name -> truthOf(name, truth));
+        }
+
+        private Builder add(String label, FitResult fit, Motion motion, Motion truthMotion, java.util.function.Function<String, OptionalDouble> truthOf) {
+            if (truthMotion != null && truthMotion != motion) {
+                throw new IllegalArgumentException("the truth is for a " + truthMotion.label() + " axis but the fit for a " + motion.label() + " one");
             }
-            entries.add(new Entry(Objects.requireNonNull(label, "label"), fit.fit(), fit.estimate().motion(),
-                    fit.fit().parameters().stream().map(p -> truthOf(p.name(), truth)).toList()));
+            entries.add(new Entry(Objects.requireNonNull(label, "label"), fit, motion, fit.parameters().stream().map(p -> truthOf.apply(p.name())).toList()));
             return this;
         }
 
