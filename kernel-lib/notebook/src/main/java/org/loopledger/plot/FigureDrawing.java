@@ -201,8 +201,13 @@ final class FigureDrawing {
 
     private static final double LEGEND_ROW = 15;
 
-    /** The data series a legend must not cover: those in the legend, and markers (crossovers, critical points). */
-    private static boolean isData(XYSeries s) { return s.isEnabled() && (s.isShowInLegend() || drawsMarker(s)); }
+    /**
+     * The series a legend must not cover: all but grey lines kept out of the legend ({@link Palette#REFERENCE}: unit
+     * circle, M-contours), which are decoration; a Nyquist plot's mirror for negative frequencies or an Ms circle counts.
+     */
+    private static boolean isData(XYSeries s) {
+        return s.isEnabled() && (s.isShowInLegend() || drawsMarker(s) || !Palette.REFERENCE.equals(s.getLineColor()));
+    }
 
     private static LegendBox legendBox(Canvas c, List<XYSeries> series, List<double[][]> px, Styler.LegendPosition preferred,
                                        double left, double top, double pw, double ph, boolean forceOutside, double belowY) {
