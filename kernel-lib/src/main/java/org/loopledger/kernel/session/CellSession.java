@@ -42,15 +42,21 @@ public final class CellSession implements AutoCloseable {
     private volatile boolean inputCancelled;
     private JShell shell;
     private AgentConnection agent;
+    private volatile Thread warmUpThread;
+    private volatile boolean warmUpStopped;
 
     private CellSession(SessionOptions options) {
         this.options = options;
     }
 
-    /** Starts the agent JVM, loads the preloaded imports and, if asked, warms the compiler. */
+    /**
+     * Starts the agent JVM and loads the preloaded imports; if asked, warms the compiler in the background
+     * ({@link #stopWarmUp()}).
+     */
     public static CellSession start(SessionOptions options) {
         CellSession s = new CellSession(options);
         s.boot();
+        if (options.warmUp()) s.startWarmUp();
         return s;
     }
 
@@ -82,20 +88,51 @@ public final class CellSession implements AutoCloseable {
                 if (e.status() == Snippet.Status.REJECTED) shell.drop(e.snippet());
             }
         }
-        if (options.warmUp()) warmUp();
     }
 
-    private void warmUp() {
-        String[] snippets = {"1+1", "int ll$warm = 2;", "double ll$f(double x) { return x * ll$warm; }", "ll$f(1.5)",
-                "String.valueOf(ll$f(2))", "new java.util.ArrayList<Integer>().size()", "1+1"};
-        for (String src : snippets) {
-            for (SnippetEvent e : shell.eval(src)) shell.drop(e.snippet());
+    /**
+     * Compiles a few throw-away snippets while nobody waits, so that the first cell a user types runs fast.
+     * Warming used to be part of {@link #start}, which made every first cell wait for it (about a second on the
+     * 2-core build machine) whether or not the user was still typing; now the warm-up runs on its own thread
+     * and stops, between two snippets, as soon as the session is needed ({@link #stopWarmUp()}).
+     */
+    private void startWarmUp() {
+        Thread t = new Thread(() -> {
+            String[] snippets = {"1+1", "int ll$warm = 2;", "double ll$f(double x) { return x * ll$warm; }", "ll$f(1.5)",
+                    "String.valueOf(ll$f(2))", "new java.util.ArrayList<Integer>().size()", "1+1"};
+            try {
+                for (String src : snippets) {
+                    if (warmUpStopped) break;
+                    for (SnippetEvent e : shell.eval(src)) shell.drop(e.snippet());
+                }
+                agent.forgetLast();
+            } catch (Exception | Error e) {
+                // warm-up only
+            }
+        }, "loopledger-warm-up");
+        t.setDaemon(true);
+        warmUpThread = t;
+        t.start();
+    }
+
+    /**
+     * Ends the background warm-up (after the snippet it is compiling) and waits for it; harmless when none
+     * runs. Everything that uses the JShell session calls this first, since JShell is not thread-safe.
+     */
+    public void stopWarmUp() {
+        warmUpStopped = true;
+        Thread t = warmUpThread;
+        if (t == null || t == Thread.currentThread()) return;
+        boolean interrupted = false;
+        while (t.isAlive()) {
+            try {
+                t.join();
+            } catch (InterruptedException e) {
+                interrupted = true;
+            }
         }
-        try {
-            agent.forgetLast();
-        } catch (Exception e) {
-            // warm-up only
-        }
+        warmUpThread = null;
+        if (interrupted) Thread.currentThread().interrupt();
     }
 
     /** A line for the agent's System.in, from the running cell's input (on the launcher's input thread). */
@@ -125,6 +162,7 @@ public final class CellSession implements AutoCloseable {
      *                  thread, and told to give up when the cell is interrupted or the session closes
      */
     public CellResult execute(String code, String cellLabel, OutputListener sink, StandardInput stdin) {
+        stopWarmUp();
         CellResult.Collector collector = new CellResult.Collector(sink);
         listener = collector;
         interruptRequested = false;
@@ -328,11 +366,13 @@ public final class CellSession implements AutoCloseable {
 
     /** Ends the agent JVM and starts a new session with the preloaded imports. */
     public void restart() {
+        stopWarmUp();
         restartQuietly();
     }
 
     /** Whether a console should run the code now, as for Jupyter's {@code is_complete_request}. */
     public Completeness isComplete(String code) {
+        stopWarmUp();
         SourceCodeAnalysis analysis = shell.sourceCodeAnalysis();
         String rest = code;
         while (true) {
@@ -366,6 +406,7 @@ public final class CellSession implements AutoCloseable {
 
     /** Completions at {@code cursor} (UTF-16 offset) from JShell's source analysis. */
     public Completions complete(String code, int cursor) {
+        stopWarmUp();
         int[] anchor = new int[1];
         int at = Math.max(0, Math.min(cursor, code.length()));
         List<SourceCodeAnalysis.Suggestion> suggestions = shell.sourceCodeAnalysis().completionSuggestions(code, at, anchor);
@@ -377,6 +418,7 @@ public final class CellSession implements AutoCloseable {
 
     /** Signatures and Javadoc of what is at {@code cursor}, or empty when nothing is known there. */
     public Optional<String> inspect(String code, int cursor) {
+        stopWarmUp();
         int at = Math.max(0, Math.min(cursor, code.length()));
         List<SourceCodeAnalysis.Documentation> docs = shell.sourceCodeAnalysis().documentation(code, at, true);
         if (docs.isEmpty()) return Optional.empty();
@@ -392,6 +434,7 @@ public final class CellSession implements AutoCloseable {
     @Override
     public void close() {
         inputCancelled = true;
+        stopWarmUp();
         try {
             shell.close();
         } catch (RuntimeException e) {
