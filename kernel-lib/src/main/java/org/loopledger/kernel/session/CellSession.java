@@ -37,9 +37,24 @@ public final class CellSession implements AutoCloseable {
     private volatile OutputListener listener = OutputListener.IGNORE;
     private volatile boolean interruptRequested;
     private volatile boolean executing;
-    private volatile StandardInput input = NO_STANDARD_INPUT;
-    /** Set by an interrupt or close: a read waiting for the user gives up. */
-    private volatile boolean inputCancelled;
+    /** The standard input of the running cell; a new one per cell, so that a wait of an earlier cell never outlives it. */
+    private volatile InputTurn input = InputTurn.closed();
+
+    /** One cell's standard input; {@code over} ends every wait on it (interrupt, end of the cell, close). */
+    private static final class InputTurn {
+        final StandardInput source;
+        volatile boolean over;
+
+        InputTurn(StandardInput source) {
+            this.source = source;
+        }
+
+        static InputTurn closed() {
+            InputTurn t = new InputTurn(NO_STANDARD_INPUT);
+            t.over = true;
+            return t;
+        }
+    }
     private JShell shell;
     private AgentConnection agent;
     private volatile Thread warmUpThread;
@@ -137,8 +152,9 @@ public final class CellSession implements AutoCloseable {
 
     /** A line for the agent's System.in, from the running cell's input (on the launcher's input thread). */
     private String readLine() throws java.io.IOException {
-        if (inputCancelled) throw new java.io.IOException("the cell was interrupted while waiting for standard input");
-        return input.readLine(() -> inputCancelled);
+        InputTurn turn = input;
+        if (turn.over) return NO_STANDARD_INPUT.readLine(() -> true);
+        return turn.source.readLine(() -> turn.over);
     }
 
     /**
@@ -166,8 +182,8 @@ public final class CellSession implements AutoCloseable {
         CellResult.Collector collector = new CellResult.Collector(sink);
         listener = collector;
         interruptRequested = false;
-        inputCancelled = false;
-        input = stdin;
+        InputTurn turn = new InputTurn(stdin);
+        input = turn;
         executing = true;
         try {
             runSnippets(code, cellLabel, collector);
@@ -182,7 +198,8 @@ public final class CellSession implements AutoCloseable {
             }
         } finally {
             executing = false;
-            input = NO_STANDARD_INPUT;
+            turn.over = true;
+            input = InputTurn.closed();
         }
         return collector.result();
     }
@@ -312,7 +329,7 @@ public final class CellSession implements AutoCloseable {
      */
     public void interrupt() {
         interruptRequested = true;
-        inputCancelled = true;
+        input.over = true;
         stopOnce();
         if (!executing) return;
         Thread retry = new Thread(() -> {
@@ -433,7 +450,7 @@ public final class CellSession implements AutoCloseable {
 
     @Override
     public void close() {
-        inputCancelled = true;
+        input.over = true;
         stopWarmUp();
         try {
             shell.close();
