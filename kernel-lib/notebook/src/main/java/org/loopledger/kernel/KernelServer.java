@@ -84,9 +84,12 @@ public final class KernelServer implements AutoCloseable {
         t.start();
     }
 
+    /** The session, its background warm-up ended (JShell serves one thread at a time). */
     private CellSession session() {
         try {
-            return session.get();
+            CellSession s = session.get();
+            s.stopWarmUp();
+            return s;
         } catch (InterruptedException e) {
             Thread.currentThread().interrupt();
             throw new IllegalStateException("interrupted while the Java session was starting", e);

@@ -61,8 +61,10 @@ public final class Kernelspec {
     public static List<String> argvForThisJvm() {
         String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
         String cp = System.getProperty("java.class.path");
-        return List.of(java, "-XX:TieredStopAtLevel=1", "-XX:+UseSerialGC", "-cp", absoluteClassPath(cp),
-                "org.loopledger.cli.Main", "kernel", "{connection_file}");
+        List<String> argv = new java.util.ArrayList<>(List.of(java, "-XX:TieredStopAtLevel=1", "-XX:+UseSerialGC"));
+        argv.addAll(org.loopledger.kernel.session.ClassDataArchives.useOptions(org.loopledger.kernel.session.ClassDataArchives.HOST));
+        argv.addAll(List.of("-cp", absoluteClassPath(cp), "org.loopledger.cli.Main", "kernel", "{connection_file}"));
+        return List.copyOf(argv);
     }
 
     private static String absoluteClassPath(String cp) {

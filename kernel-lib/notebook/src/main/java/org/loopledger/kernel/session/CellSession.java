@@ -39,20 +39,41 @@ public final class CellSession implements AutoCloseable {
     private volatile OutputListener listener = OutputListener.IGNORE;
     private volatile boolean interruptRequested;
     private volatile boolean executing;
-    private volatile StandardInput input = NO_STANDARD_INPUT;
-    /** Set by an interrupt or close: a read waiting for the user gives up. */
-    private volatile boolean inputCancelled;
+    /** The standard input of the running cell; a new one per cell, so that a wait of an earlier cell never outlives it. */
+    private volatile InputTurn input = InputTurn.closed();
+
+    /** One cell's standard input; {@code over} ends every wait on it (interrupt, end of the cell, close). */
+    private static final class InputTurn {
+        final StandardInput source;
+        volatile boolean over;
+
+        InputTurn(StandardInput source) {
+            this.source = source;
+        }
+
+        static InputTurn closed() {
+            InputTurn t = new InputTurn(NO_STANDARD_INPUT);
+            t.over = true;
+            return t;
+        }
+    }
     private JShell shell;
     private AgentConnection agent;
+    private volatile Thread warmUpThread;
+    private volatile boolean warmUpStopped;
 
     private CellSession(SessionOptions options) {
         this.options = options;
     }
 
-    /** Starts the agent JVM, loads the preloaded imports and, if asked, warms the compiler. */
+    /**
+     * Starts the agent JVM and loads the preloaded imports; if asked, warms the compiler in the background
+     * ({@link #stopWarmUp()}).
+     */
     public static CellSession start(SessionOptions options) {
         CellSession s = new CellSession(options);
         s.boot();
+        if (options.warmUp()) s.startWarmUp();
         return s;
     }
 
@@ -84,26 +105,58 @@ public final class CellSession implements AutoCloseable {
                 if (e.status() == Snippet.Status.REJECTED) shell.drop(e.snippet());
             }
         }
-        if (options.warmUp()) warmUp();
     }
 
-    private void warmUp() {
-        String[] snippets = {"1+1", "int ll$warm = 2;", "double ll$f(double x) { return x * ll$warm; }", "ll$f(1.5)",
-                "String.valueOf(ll$f(2))", "new java.util.ArrayList<Integer>().size()", "1+1"};
-        for (String src : snippets) {
-            for (SnippetEvent e : shell.eval(src)) shell.drop(e.snippet());
+    /**
+     * Compiles a few throw-away snippets while nobody waits, so that the first cell a user types runs fast.
+     * Warming used to be part of {@link #start}, which made every first cell wait for it (about a second on the
+     * 2-core build machine) whether or not the user was still typing; now the warm-up runs on its own thread
+     * and stops, between two snippets, as soon as the session is needed ({@link #stopWarmUp()}).
+     */
+    private void startWarmUp() {
+        Thread t = new Thread(() -> {
+            String[] snippets = {"1+1", "int ll$warm = 2;", "double ll$f(double x) { return x * ll$warm; }", "ll$f(1.5)",
+                    "String.valueOf(ll$f(2))", "new java.util.ArrayList<Integer>().size()", "1+1"};
+            try {
+                for (String src : snippets) {
+                    if (warmUpStopped) break;
+                    for (SnippetEvent e : shell.eval(src)) shell.drop(e.snippet());
+                }
+                agent.forgetLast();
+            } catch (Exception | Error e) {
+                // warm-up only
+            }
+        }, "loopledger-warm-up");
+        t.setDaemon(true);
+        warmUpThread = t;
+        t.start();
+    }
+
+    /**
+     * Ends the background warm-up (after the snippet it is compiling) and waits for it; harmless when none
+     * runs. Everything that uses the JShell session calls this first, since JShell is not thread-safe.
+     */
+    public void stopWarmUp() {
+        warmUpStopped = true;
+        Thread t = warmUpThread;
+        if (t == null || t == Thread.currentThread()) return;
+        boolean interrupted = false;
+        while (t.isAlive()) {
+            try {
+                t.join();
+            } catch (InterruptedException e) {
+                interrupted = true;
+            }
         }
-        try {
-            agent.forgetLast();
-        } catch (Exception e) {
-            // warm-up only
-        }
+        warmUpThread = null;
+        if (interrupted) Thread.currentThread().interrupt();
     }
 
     /** A line for the agent's System.in, from the running cell's input (on the launcher's input thread). */
     private String readLine() throws java.io.IOException {
-        if (inputCancelled) throw new java.io.IOException("the cell was interrupted while waiting for standard input");
-        return input.readLine(() -> inputCancelled);
+        InputTurn turn = input;
+        if (turn.over) return NO_STANDARD_INPUT.readLine(() -> true);
+        return turn.source.readLine(() -> turn.over);
     }
 
     /**
@@ -127,11 +180,12 @@ public final class CellSession implements AutoCloseable {
      *                  thread, and told to give up when the cell is interrupted or the session closes
      */
     public CellResult execute(String code, String cellLabel, OutputListener sink, StandardInput stdin) {
+        stopWarmUp();
         CellResult.Collector collector = new CellResult.Collector(sink);
         listener = collector;
         interruptRequested = false;
-        inputCancelled = false;
-        input = stdin;
+        InputTurn turn = new InputTurn(stdin);
+        input = turn;
         executing = true;
         try {
             runSnippets(code, cellLabel, collector);
@@ -146,7 +200,8 @@ public final class CellSession implements AutoCloseable {
             }
         } finally {
             executing = false;
-            input = NO_STANDARD_INPUT;
+            turn.over = true;
+            input = InputTurn.closed();
         }
         return collector.result();
     }
@@ -278,7 +333,7 @@ public final class CellSession implements AutoCloseable {
      */
     public void interrupt() {
         interruptRequested = true;
-        inputCancelled = true;
+        input.over = true;
         stopOnce();
         if (!executing) return;
         Thread retry = new Thread(() -> {
@@ -332,11 +387,13 @@ public final class CellSession implements AutoCloseable {
 
     /** Ends the agent JVM and starts a new session with the preloaded imports. */
     public void restart() {
+        stopWarmUp();
         restartQuietly();
     }
 
     /** Whether a console should run the code now, as for Jupyter's {@code is_complete_request}. */
     public Completeness isComplete(String code) {
+        stopWarmUp();
         SourceCodeAnalysis analysis = shell.sourceCodeAnalysis();
         String rest = code;
         while (true) {
@@ -370,6 +427,7 @@ public final class CellSession implements AutoCloseable {
 
     /** Completions at {@code cursor} (UTF-16 offset) from JShell's source analysis. */
     public Completions complete(String code, int cursor) {
+        stopWarmUp();
         int[] anchor = new int[1];
         int at = Math.max(0, Math.min(cursor, code.length()));
         List<SourceCodeAnalysis.Suggestion> suggestions = shell.sourceCodeAnalysis().completionSuggestions(code, at, anchor);
@@ -393,6 +451,7 @@ public final class CellSession implements AutoCloseable {
      * in the jar ({@link SourceDocs}). Empty when nothing is known there.
      */
     public Optional<Inspection> inspection(String code, int cursor) {
+        stopWarmUp();
         int at = Math.max(0, Math.min(cursor, code.length()));
         // JShell documents only the snippet it is given: drop the complete snippets before the cursor's (a cell of several lines)
         int start = 0;
@@ -430,7 +489,8 @@ public final class CellSession implements AutoCloseable {
 
     @Override
     public void close() {
-        inputCancelled = true;
+        input.over = true;
+        stopWarmUp();
         try {
             shell.close();
         } catch (RuntimeException e) {

@@ -8,7 +8,8 @@ import java.util.List;
  * @param classPath      class path for compiling and running cells; by default the running JVM's
  *                       {@code java.class.path} (the shaded jar, or the test class path)
  * @param agentVmOptions extra options of the agent JVM that runs the cells, e.g. {@code -Xmx4g}
- * @param warmUp         whether to compile a few throw-away snippets at start so the first cell is fast
+ * @param warmUp         whether to compile a few throw-away snippets in the background after the start, until
+ *                       the session is first used, so that the first cell is fast
  */
 public record SessionOptions(String classPath, List<String> agentVmOptions, boolean warmUp) {
     public SessionOptions {
@@ -16,8 +17,27 @@ public record SessionOptions(String classPath, List<String> agentVmOptions, bool
         agentVmOptions = List.copyOf(agentVmOptions);
     }
 
-    /** The running JVM's class path, no extra options, warm-up on. */
+    /**
+     * The agent JVM's own flags: the serial collector (one collector thread, the smallest footprint, no
+     * concurrent threads competing with the cell on a small machine); full tiered compilation stays, since the
+     * agent runs the numerical work of the cells.
+     */
+    static final List<String> AGENT_FLAGS = List.of("-XX:+UseSerialGC");
+
+    /**
+     * The running JVM's class path, warm-up on, and the agent's options: the system property
+     * {@code loopledger.agentJavaOptions} (space-separated) when set, else {@link #AGENT_FLAGS} and the agent's
+     * class data archive ({@link ClassDataArchives}) when there is one.
+     */
     public static SessionOptions defaults() {
-        return new SessionOptions(System.getProperty("java.class.path"), List.of(), true);
+        String override = System.getProperty("loopledger.agentJavaOptions");
+        List<String> agent = new java.util.ArrayList<>();
+        if (override != null && !override.isBlank()) {
+            agent.addAll(List.of(override.trim().split("\\s+")));
+        } else {
+            agent.addAll(AGENT_FLAGS);
+            agent.addAll(ClassDataArchives.useOptions(ClassDataArchives.AGENT));
+        }
+        return new SessionOptions(System.getProperty("java.class.path"), agent, true);
     }
 }

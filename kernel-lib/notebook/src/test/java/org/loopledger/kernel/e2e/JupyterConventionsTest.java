@@ -105,4 +105,12 @@ class JupyterConventionsTest {
         JsonObject after = s.getAsJsonObject("after");
         assertEquals("ok", after.getAsJsonObject("reply").get("status").getAsString(), s::toString);
     }
+
+    /** A shutdown request while the kernel waits for input_reply ends the kernel process without being killed. */
+    @Test
+    void shutdownWhileWaitingForInputDoesNotHang() {
+        JsonObject s = step("stdin_shutdown");
+        assertEquals("input_request", s.get("request_type").getAsString(), s::toString);
+        assertTrue(s.get("ended_by_itself").getAsBoolean(), s::toString);
+    }
 }

@@ -79,6 +79,20 @@ def stdin_interrupted():
     after = run("40 + 2")
     return {"request_type": req["msg_type"], "reply": reply["content"], "after": after}
 
+def stdin_shutdown():
+    # a shutdown_request while the kernel waits for input_reply ends the kernel process by itself
+    # (polled for up to 30 s, far beyond the 50 ms stdin poll; jupyter_client would kill it after 5 s)
+    kc.execute("new java.util.Scanner(System.in).nextLine()", allow_stdin=True)
+    req = kc.get_stdin_msg(timeout=60)
+    kc.shutdown()
+    ended = False
+    for i in range(300):
+        if not km.is_alive():
+            ended = True
+            break
+        time.sleep(0.1)
+    return {"request_type": req["msg_type"], "ended_by_itself": ended}
+
 try:
     kc.wait_for_ready(timeout=90)
     step("json_mime", json_mime)
@@ -86,6 +100,7 @@ try:
     step("stdin_refused", stdin_refused)
     step("stdin_answered", stdin_answered)
     step("stdin_interrupted", stdin_interrupted)
+    step("stdin_shutdown", stdin_shutdown)  # last: it ends the kernel
 finally:
     try:
         kc.stop_channels()

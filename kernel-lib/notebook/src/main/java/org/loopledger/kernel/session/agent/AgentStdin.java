@@ -6,9 +6,7 @@ import java.io.IOException;
 import java.io.InputStream;
 import java.net.Socket;
 import java.nio.charset.StandardCharsets;
-import java.util.concurrent.BlockingQueue;
-import java.util.concurrent.LinkedBlockingQueue;
-import java.util.concurrent.TimeUnit;
+import java.util.ArrayDeque;
 
 /**
  * The agent JVM's {@code System.in}: when its buffer is empty, a read asks the launcher for one line over
@@ -20,7 +18,12 @@ import java.util.concurrent.TimeUnit;
  */
 final class AgentStdin extends InputStream {
     private final DataOutputStream requests;
-    private final BlockingQueue<StdinProtocol.Answer> answers = new LinkedBlockingQueue<>();
+    /**
+     * Answers not yet taken, guarded by their own monitor. A monitor, not a {@code java.util.concurrent} queue:
+     * {@code Thread.stop} (how an interrupt ends a cell) unwinds a monitor cleanly but can leave a
+     * {@code ReentrantLock} held by the stopped thread, after which every later read would hang.
+     */
+    private final ArrayDeque<StdinProtocol.Answer> answers = new ArrayDeque<>();
     private byte[] buffer = new byte[0];
     private int position;
     private int nextSequence;
@@ -31,9 +34,18 @@ final class AgentStdin extends InputStream {
         DataInputStream in = new DataInputStream(new java.io.BufferedInputStream(socket.getInputStream()));
         Thread reader = new Thread(() -> {
             try {
-                while (true) answers.put(StdinProtocol.readAnswer(in));
-            } catch (IOException | InterruptedException e) {
-                closed = true;
+                while (true) {
+                    StdinProtocol.Answer a = StdinProtocol.readAnswer(in);
+                    synchronized (answers) {
+                        answers.add(a);
+                        answers.notifyAll();
+                    }
+                }
+            } catch (IOException e) {
+                synchronized (answers) {
+                    closed = true;
+                    answers.notifyAll();
+                }
             }
         }, "loopledger-stdin");
         reader.setDaemon(true);
@@ -68,24 +80,28 @@ final class AgentStdin extends InputStream {
         int sequence = ++nextSequence;
         requests.writeInt(sequence);
         requests.flush();
-        while (true) {
-            StdinProtocol.Answer a;
-            try {
-                a = answers.poll(200, TimeUnit.MILLISECONDS);
-            } catch (InterruptedException e) {
-                Thread.currentThread().interrupt();
-                throw new java.io.InterruptedIOException("interrupted while waiting for standard input");
+        StdinProtocol.Answer a = null;
+        synchronized (answers) {
+            while (a == null) {
+                StdinProtocol.Answer head = answers.poll();
+                if (head == null) {
+                    if (closed) return false;
+                    try {
+                        answers.wait();
+                    } catch (InterruptedException e) {
+                        Thread.currentThread().interrupt();
+                        throw new java.io.InterruptedIOException("interrupted while waiting for standard input");
+                    }
+                } else if (head.sequence() == sequence) {
+                    a = head;
+                }
+                // any other answer belongs to a read that was stopped: dropped
             }
-            if (a == null) {
-                if (closed) return false;
-                continue;
-            }
-            if (a.sequence() != sequence) continue; // the answer to a read that was stopped
-            // unchecked: java.util.Scanner swallows an IOException and reports only "No line found"
-            if (a.failure() != null) throw new java.io.UncheckedIOException(a.failure(), new IOException(a.failure()));
-            buffer = (a.line() + "\n").getBytes(StandardCharsets.UTF_8);
-            position = 0;
-            return true;
         }
+        // unchecked: java.util.Scanner swallows an IOException and reports only "No line found"
+        if (a.failure() != null) throw new java.io.UncheckedIOException(a.failure(), new IOException(a.failure()));
+        buffer = (a.line() + "\n").getBytes(StandardCharsets.UTF_8);
+        position = 0;
+        return true;
     }
 }
