@@ -10,7 +10,7 @@ import java.util.List;
 final class Preload {
     private static final List<String> LIBRARY_PACKAGES = List.of(
             "org.loopledger.lti", "org.loopledger.frf", "org.loopledger.ident.excitation", "org.loopledger.ident.log",
-            "org.loopledger.ident.spectral", "org.loopledger.ident.fit", "org.loopledger.ident.demo", "org.loopledger.control",
+            "org.loopledger.ident.spectral", "org.loopledger.ident.estimate", "org.loopledger.ident.fit", "org.loopledger.ident.demo", "org.loopledger.control",
             "org.loopledger.analysis", "org.loopledger.tune", "org.loopledger.sim", "org.loopledger.plot",
             "org.loopledger.display");
     /** What the jshell tool imports by default, so cells read like ordinary Java. */
