@@ -10,7 +10,7 @@ import java.util.Map;
 import java.util.Optional;
 
 /**
- * A drive log as it was read, so the reader can check the import at a glance: the file, its size and SHA-256 (as
+ * A drive log as it was read, so the reader can check the import at a glance: the file's name, its size and SHA-256 (as
  * recorded for the tuning record), rows, sample rate and duration; every SI column and where it came from (the
  * file's column and unit, or the stated rate for a log without a time column); the file's metadata lines; the log
  * checks' warnings ("none" when there are none). HTML and a plain-text form with the same content; deterministic.
@@ -19,8 +19,17 @@ import java.util.Optional;
 public final class DriveLogSummary {
     private DriveLogSummary() {}
 
+    /**
+     * The file name without its folder: the folder depends on where the notebook was run from (the runner's
+     * {@code verify} compares outputs run from elsewhere), and the tuning record lists the dataset's path.
+     */
+    static String fileName(String source) {
+        int slash = Math.max(source.lastIndexOf('/'), source.lastIndexOf('\\'));
+        return slash >= 0 && slash < source.length() - 1 ? source.substring(slash + 1) : source;
+    }
+
     public static MimeBundle render(DriveLog log) {
-        String caption = "Log " + log.source() + ": " + log.rows() + " rows at " + Figures.num(log.sampleRateHz()) + " Hz ("
+        String caption = "Log " + fileName(log.source()) + ": " + log.rows() + " rows at " + Figures.num(log.sampleRateHz()) + " Hz ("
                 + Figures.num(log.durationS()) + " s)";
         Optional<Provenance.Dataset> d = log.dataset();
         String digest = d.map(x -> "SHA-256 " + x.sha256() + " (" + x.bytes() + " bytes)").orElse("SHA-256 not recorded (the log was not read from a file)");

@@ -34,7 +34,12 @@ class DriveLogSummaryTest {
         MimeBundle b = Bundles.of(log);   // registered: a cell ending with the log shows this
         String text = b.plainText();
         // 5000 rows at the stated 1000 Hz: 5 s
-        assertTrue(text.startsWith("Log " + log.source() + ": 5000 rows at 1000 Hz (5 s)\n"), text);
+        // the file's name only: its folder depends on where the notebook runs, and verify compares runs from elsewhere
+        assertTrue(text.startsWith("Log scope.csv: 5000 rows at 1000 Hz (5 s)\n"), text);
+        assertFalse(text.contains(dir.toString()), text);
+        assertEquals("a.csv", DriveLogSummary.fileName("../datasets/a.csv"));
+        assertEquals("a.csv", DriveLogSummary.fileName("C:\\logs\\a.csv"));
+        assertEquals("inline", DriveLogSummary.fileName("inline"));
         // SHA-256 of the file's bytes by the JDK's MessageDigest (FIPS 180-4), and the size in bytes
         String sha = HexFormat.of().formatHex(MessageDigest.getInstance("SHA-256").digest(Files.readAllBytes(f)));
         assertTrue(text.contains("SHA-256 " + sha + " (" + Files.size(f) + " bytes)"), text);
