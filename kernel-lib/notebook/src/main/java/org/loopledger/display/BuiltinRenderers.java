@@ -33,5 +33,6 @@ final class BuiltinRenderers {
         r.register(org.loopledger.sim.TimeResponse.class, TimeResponseRenderer::render);
         r.register(org.loopledger.ident.estimate.LoadCases.class, LoadCaseTable::render);
         r.register(org.loopledger.ident.estimate.LoadCaseEstimate.class, LoadCaseTable::render);
+        r.register(org.loopledger.ident.log.DriveLog.class, DriveLogSummary::render);
     }
 }

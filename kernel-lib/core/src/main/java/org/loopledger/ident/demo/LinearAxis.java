@@ -1,5 +1,7 @@
 package org.loopledger.ident.demo;
 
+import org.loopledger.ident.fit.TwoMassParameters;
+import org.loopledger.lti.Motion;
 
 
 /**
@@ -41,5 +43,10 @@ public record LinearAxis(double forceConstantNPerA, double carriageMassKg, doubl
 
     /** True modal parameters of current → logged carriage velocity (SI; frequencies in Hz). */
     public record Truth(double forceConstantNPerA, double massKg, double viscousNsPerM, double resonanceHz, double resonanceDamping,
-                        double antiresonanceHz, double antiresonanceDamping, double delayS) {}
+                        double antiresonanceHz, double antiresonanceDamping, double delayS) {
+        /** The same numbers as the two-mass fit's parameters on a {@link Motion#LINEAR} axis (kg, N·s/m, Hz, s), e.g. for a fit table's truth. */
+        public TwoMassParameters twoMass() {
+            return new TwoMassParameters(massKg, viscousNsPerM, resonanceHz, resonanceDamping, antiresonanceHz, antiresonanceDamping, delayS, Motion.LINEAR);
+        }
+    }
 }

@@ -11,6 +11,7 @@ import org.junit.jupiter.params.ParameterizedTest;
 import org.junit.jupiter.params.provider.EnumSource;
 
 import java.io.IOException;
+import java.util.List;
 import java.nio.charset.StandardCharsets;
 import java.nio.file.Files;
 import java.nio.file.Path;
@@ -72,6 +73,13 @@ class DemoDatasetsTest {
         assertTrue(t.resonanceHz() > 150 && t.resonanceHz() < 250, "resonance " + t.resonanceHz());
         assertEquals(1 + 1.3 / 4.2, Math.pow(t.resonanceHz() / t.antiresonanceHz(), 2), 1e-3);
         assertEquals(5.5, t.massKg(), 1e-3);
+        // as the fit's parameters: the same numbers on a linear axis, and the mass ratio of the two-mass model's
+        // undamped formula (ωr/ωa)² - 1 lands within 1e-3 of the invented head/carriage ratio 1.3/4.2 (hand derivation above)
+        var p = t.twoMass();
+        assertEquals(org.loopledger.lti.Motion.LINEAR, p.motion());
+        assertEquals(List.of(t.massKg(), t.viscousNsPerM(), t.resonanceHz(), t.resonanceDamping(), t.antiresonanceHz(), t.antiresonanceDamping(), t.delayS()),
+                List.of(p.inertiaKgM2(), p.viscousNmsPerRad(), p.resonanceHz(), p.resonanceDamping(), p.antiresonanceHz(), p.antiresonanceDamping(), p.delayS()));
+        assertEquals(1.3 / 4.2, p.inertiaRatio(), 1e-3);
     }
 
     @Test
