@@ -28,11 +28,13 @@ public final class FitTable implements Displayable {
 
     private final String title;
     private final List<Entry> entries;
+    private final boolean errors;
 
-    private FitTable(String title, List<Entry> entries) {
+    private FitTable(String title, List<Entry> entries, boolean errors) {
         if (entries.isEmpty()) throw new IllegalArgumentException("a fit table needs at least one fit; add rows with row(label, fit) or row(label, fit, truth)");
         this.title = title;
         this.entries = List.copyOf(entries);
+        this.errors = errors;
     }
 
     public static Builder builder() { return new Builder(); }
@@ -80,6 +82,7 @@ public final class FitTable implements Displayable {
         boolean truth = anyTruth();
         List<String> header = new ArrayList<>(List.of("Fit", "Parameter", "Estimate", "95 % low", "95 % high", "Unit"));
         if (truth) header.addAll(List.of("Truth", "Truth inside the 95 % interval"));
+        if (truth && errors) header.addAll(List.of("Error (%)", "Distance (standard errors)"));
         HtmlTable t = HtmlTable.of(title, header.toArray(String[]::new));
         for (Entry e : entries) {
             List<ParameterEstimate> ps = e.fit().parameters();
@@ -98,9 +101,14 @@ public final class FitTable implements Displayable {
                         cells.add(Figures.num(v * scale));
                         cells.add(!outside ? "yes" : p.standardError() > 0
                                 ? "NO: " + Figures.num(p.standardErrorsFrom(v)) + " standard errors away" : "NO (no standard error)");
+                        if (errors) {
+                            cells.add(v == 0 ? Figures.NONE : Figures.fixed2(100 * (p.value() - v) / v));
+                            cells.add(p.standardError() > 0 ? Figures.fixed2(p.standardErrorsFrom(v)) : Figures.NONE);
+                        }
                     } else {
                         cells.add(Figures.NONE);
                         cells.add("not known");
+                        if (errors) cells.addAll(List.of(Figures.NONE, Figures.NONE));
                     }
                 }
                 t.rowWithClass(outside ? "fail" : "", cells.toArray(String[]::new));
@@ -139,6 +147,7 @@ public final class FitTable implements Displayable {
     public static final class Builder {
         private final List<Entry> entries = new ArrayList<>();
         private String title = "Fitted parameters";
+        private boolean errors;
 
         private Builder() {}
 
@@ -173,6 +182,15 @@ public final class FitTable implements Displayable {
             return this;
         }
 
-        public FitTable build() { return new FitTable(title, entries); }
+        /**
+         * Adds two columns where the truth is known: the estimate's error relative to the truth (percent) and the truth's
+         * distance from the estimate in standard errors (whether inside the interval or not).
+         */
+        public Builder showErrors() {
+            this.errors = true;
+            return this;
+        }
+
+        public FitTable build() { return new FitTable(title, entries, errors); }
     }
 }

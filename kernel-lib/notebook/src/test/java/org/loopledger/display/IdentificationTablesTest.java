@@ -1,0 +1,98 @@
+package org.loopledger.display;
+
+import org.jsoup.nodes.Document;
+import org.junit.jupiter.api.Test;
+import org.loopledger.frf.Frf;
+import org.loopledger.ident.fit.FitResult;
+import org.loopledger.ident.fit.ParameterEstimate;
+import org.loopledger.ident.fit.TwoMassFit;
+import org.loopledger.ident.fit.TwoMassParameters;
+import org.loopledger.lti.TransferFunction;
+import org.loopledger.tune.Resonance;
+import org.loopledger.tune.ResonanceWarning;
+
+import java.util.List;
+
+import static org.junit.jupiter.api.Assertions.*;
+
+/** The tables notebooks 01 and 03 show: responses at chosen frequencies, resonances per load case, fit errors against the truth. */
+class IdentificationTablesTest {
+    @Test
+    void frfTableReadsMeasuredLinesWithoutInterpolationAndModelsExactly() {
+        // A measured response on lines 1, 2, 4, 8 Hz: values 1, 1j, -1, -1j (0, +90, +180, +270 deg unwrapped), coherence and sigma given.
+        double[] f = {1, 2, 4, 8};
+        Frf g = Frf.ofPartsHz(f, new double[] {1, 0, -2, 0}, new double[] {0, 1, 0, -0.5})
+                .withCoherence(new double[] {0.99, 0.95, 0.5, 0.97}).withUncertainty(new double[] {0.01, 0.02, 0.1, 0.05});
+        // G = 1/(s + 1) at w = 1 rad/s: |G| = 1/sqrt(2) = -3.0103 dB, phase -45 deg (first-order lag, textbook definition).
+        TransferFunction lag = TransferFunction.continuous(new double[] {1}, new double[] {1, 1});
+        FrfTable t = FrfTable.atHz(1 / (2 * Math.PI), 3.1).add("measured", g).add("lag", lag);
+        Document d = ResultTablesTest.html(t.toMimeBundle());
+        List<String> header = d.select("thead th").eachText();
+        assertEquals(List.of("Frequency (Hz)", "measured: |G| (dB)", "measured: phase (deg)", "measured: coherence", "measured: rel. std. error (%)",
+                "lag: |G| (dB)", "lag: phase (deg)"), header);
+        List<String> low = d.select("tbody tr").get(0).select("td").eachText();
+        // 0.159 Hz: nearest line 1 Hz (below the band by less than one line spacing): |1| = 0 dB, 0 deg, coherence 0.99, 0.01/1 = 1 %.
+        assertEquals(List.of("0.1592", "0", "0", "0.99", "1"), low.subList(0, 5));
+        assertEquals(-3.0103, Double.parseDouble(low.get(5)), 0.005);
+        assertEquals(-45, Double.parseDouble(low.get(6)), 0.005);
+        // 3.1 Hz: nearest line 4 Hz (0.9 Hz away against 1.1 Hz to the 2 Hz line): |-2| = 6.0206 dB, phase 180 deg on the unwrapped
+        // branch, sigma/|G| = 0.1/2 = 5 %; no interpolation (the line value itself).
+        List<String> mid = d.select("tbody tr").get(1).select("td").eachText();
+        assertEquals(List.of("3.1", "6.02", "180", "0.5", "5"), mid.subList(0, 5));
+        // lag at 3.1 Hz: w = 19.478 rad/s, |G| = -20 log10 sqrt(1 + w^2), phase -atan(w).
+        double w = 2 * Math.PI * 3.1;
+        assertEquals(-10 * Math.log10(1 + w * w), Double.parseDouble(mid.get(5)), 0.005);
+        assertEquals(-Math.toDegrees(Math.atan(w)), Double.parseDouble(mid.get(6)), 0.005);
+        String text = t.toString();
+        assertTrue(text.contains("measured: 4 lines, 1 Hz .. 8 Hz; read at the nearest line, at most 0.9 Hz away; lowest coherence 0.5 at 4 Hz"), text);
+        assertEquals(text, FrfTable.atHz(1 / (2 * Math.PI), 3.1).add("measured", g).add("lag", lag).toString(), "deterministic");
+    }
+
+    @Test
+    void frfTableRefusesFrequenciesOutsideTheBandAndEmptyRequests() {
+        Frf g = Frf.ofPartsHz(new double[] {10, 20, 30}, new double[] {1, 1, 1}, new double[] {0, 0, 0});
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> FrfTable.atHz(5, 100).add("g", g));
+        assertTrue(e.getMessage().contains("outside the response's band"), e.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> FrfTable.atHz());
+        assertThrows(IllegalArgumentException.class, () -> FrfTable.atHz(-1));
+        assertEquals(0, FrfTable.nearest(new double[] {10, 20, 30}, 14.9));
+        assertEquals(1, FrfTable.nearest(new double[] {10, 20, 30}, 15.1));
+        assertEquals(2, FrfTable.nearest(new double[] {10, 20, 30}, 99));
+    }
+
+    @Test
+    void resonanceTableComparesWithTheTruth() {
+        TwoMassParameters truth = new TwoMassParameters(2.0e-4, 1e-3, 400, 0.02, 250, 0.03, 60e-6);
+        Resonance main = new Resonance(404, 9.5, 17.0, 0.021), other = new Resonance(1500, 7, 50, 0.017);
+        Resonance coarse = new Resonance(396, 8, 30, 0.038, List.of(new ResonanceWarning(ResonanceWarning.Kind.DAMPING_NOT_RESOLVED, java.util.OptionalDouble.of(396), "too few lines")));
+        ResonanceTable t = ResonanceTable.builder().row("empty", List.of(main, other), truth).row("heavy", List.of(coarse), truth)
+                .row("none", List.of()).build();
+        Document d = ResultTablesTest.html(t.toMimeBundle());
+        // 404 Hz against 400 Hz: +1 %; 396 Hz: -1 % (relative error, definition).
+        assertEquals(List.of("empty", "404", "400", "+1.00", "9.5", "17", "0.021", "0.02", "1"), ResultTablesTest.row(d, "empty"));
+        assertEquals(List.of("heavy", "396", "400", "-1.00", "8", "30", "0.038 (not resolved)", "0.02", "0"), ResultTablesTest.row(d, "heavy"));
+        assertEquals("none found", ResultTablesTest.row(d, "none").get(1));
+        assertEquals(1, d.select("tbody tr.fail").size());
+        assertTrue(t.toString().contains("warning: heavy: too few lines"), t.toString());
+        assertTrue(t.toString().contains("warning: none: no resonance found"), t.toString());
+        assertThrows(IllegalArgumentException.class, () -> ResonanceTable.builder().build());
+    }
+
+    @Test
+    void fitTableShowsErrorsAndDistancesOnlyWhenAsked() {
+        TwoMassParameters truth = new TwoMassParameters(2.0e-4, 1e-3, 400, 0.02, 250, 0.03, 60e-6);
+        List<ParameterEstimate> est = List.of(new ParameterEstimate("inertia", "kg·m²", 2.02e-4, 1e-6, 2.0e-4, 2.04e-4),
+                new ParameterEstimate("resonance", "Hz", 405, 1, 403, 407));
+        FitResult f = new FitResult(MarginsRendererTest.CUBIC_LAG, est, List.of(), 1.1, 300, 12, List.of());
+        TwoMassFit fit = new TwoMassFit(new TwoMassParameters(2.02e-4, 1e-3, 405, 0.02, 250, 0.03, 61e-6), f);
+        Document plain = ResultTablesTest.html(FitTable.builder().row("x", fit, truth).build().toMimeBundle());
+        assertEquals(8, plain.select("thead th").size(), "the default table is unchanged");
+        Document d = ResultTablesTest.html(FitTable.builder().row("x", fit, truth).showErrors().build().toMimeBundle());
+        // inertia: (2.02e-4 - 2.0e-4)/2.0e-4 = +1 %, |2.0e-4 - 2.02e-4|/1e-6 = 2 standard errors (inside its own interval bounds as given).
+        List<String> inertia = d.select("tbody tr").get(0).select("td").eachText();
+        assertEquals(List.of("1", "2"), inertia.subList(8, 10));
+        // resonance: (405 - 400)/400 = +1.25 %, 5 standard errors.
+        List<String> res = d.select("tbody tr").get(1).select("td").eachText();
+        assertEquals(List.of("1.25", "5"), res.subList(8, 10));
+    }
+}
