@@ -79,6 +79,20 @@ class IdentificationTablesTest {
     }
 
     @Test
+    void logSummaryGivesEveryColumnsRangeAndRms() {
+        StringBuilder text = new StringBuilder("time_s,current_measured_A\n");
+        double[] u = {1, -3, 2, 0};   // repeated to the 4096 rows the log checks ask for
+        for (int i = 0; i < 4096; i++) text.append(i / 1000.0).append(',').append(u[i % 4]).append('\n');
+        LogSummary s = LogSummary.of(org.loopledger.ident.log.DriveLogReader.readString("small.csv", text.toString(),
+                org.loopledger.ident.log.LogCheckOptions.defaults()));
+        Document d = ResultTablesTest.html(s.toMimeBundle());
+        // min -3, max 2, peak |x| 3, RMS sqrt((1 + 9 + 4 + 0)/4) = sqrt(3.5) = 1.871 (definition).
+        assertEquals(List.of("current_measured_A", "-3", "2", "3", "1.871"), ResultTablesTest.row(d, "current_measured_A"));
+        assertTrue(s.toString().contains("4096 rows at 1 kHz"), s.toString());
+        assertTrue(s.toString().contains("log checks: no warnings"), s.toString());
+    }
+
+    @Test
     void fitTableShowsErrorsAndDistancesOnlyWhenAsked() {
         TwoMassParameters truth = new TwoMassParameters(2.0e-4, 1e-3, 400, 0.02, 250, 0.03, 60e-6);
         List<ParameterEstimate> est = List.of(new ParameterEstimate("inertia", "kg·m²", 2.02e-4, 1e-6, 2.0e-4, 2.04e-4),
