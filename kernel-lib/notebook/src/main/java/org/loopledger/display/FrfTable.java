@@ -11,14 +11,15 @@ import java.util.Objects;
 
 /**
  * Frequency responses side by side at a few chosen frequencies, one row per frequency: |G| in dB and the phase in
- * degrees of each response, and for a measured response that carries them its coherence and its relative standard
- * error (standard deviation over |G|, in percent).
+ * degrees of each response; with {@link #withCoherenceAndError()}, also the coherence and the relative standard error
+ * (standard deviation over |G|, in percent) of each measured response that carries them.
  *
  * <p>A measured response is read at its line nearest each frequency asked, never interpolated: a measured line is
  * what was measured, and estimates on different grids (Welch bins, periodic-average lines) are compared line by line.
- * Below the table, each measured response's lines and band, how far its lines lie from the frequencies asked, and
- * its lowest coherence and where. A model ({@link TransferFunction}) is evaluated exactly at the frequencies asked.
- * The phase is the unwrapped phase ({@link Frf#phaseDegUnwrapped()}) of the whole response.
+ * Where a response's lines are not exactly at the frequencies asked, a column gives the line read. Below the table,
+ * each measured response's lines and band (and, with coherence shown, its lowest coherence and where). A model
+ * ({@link TransferFunction}) is evaluated exactly at the frequencies asked. The phase is the unwrapped phase
+ * ({@link Frf#phaseDegUnwrapped()}) of the whole response.
  *
  * <pre>{@code
  * FrfTable.atHz(20, 100, 300).add("measured", g).add("1/C", controllerInverse)
@@ -31,11 +32,13 @@ public final class FrfTable implements Displayable {
     private final String title;
     private final double[] hz;
     private final List<Entry> entries;
+    private final boolean quality;
 
-    private FrfTable(String title, double[] hz, List<Entry> entries) {
+    private FrfTable(String title, double[] hz, List<Entry> entries, boolean quality) {
         this.title = title;
         this.hz = hz;
         this.entries = List.copyOf(entries);
+        this.quality = quality;
     }
 
     /** A table at these frequencies in Hz (positive, any order; rows follow the order given). */
@@ -45,7 +48,7 @@ public final class FrfTable implements Displayable {
         for (double f : hz) {
             if (!(f > 0) || !Double.isFinite(f)) throw new IllegalArgumentException("frequencies must be positive and finite (Hz), got " + f);
         }
-        return new FrfTable("Frequency responses at chosen frequencies", hz.clone(), List.of());
+        return new FrfTable("Frequency responses at chosen frequencies", hz.clone(), List.of(), false);
     }
 
     /**
@@ -77,12 +80,15 @@ public final class FrfTable implements Displayable {
     }
 
     /** The same table with another caption. */
-    public FrfTable titled(String title) { return new FrfTable(Objects.requireNonNull(title, "title"), hz, entries); }
+    public FrfTable titled(String title) { return new FrfTable(Objects.requireNonNull(title, "title"), hz, entries, quality); }
+
+    /** The same table with the coherence and relative standard error columns of the measured responses that carry them. */
+    public FrfTable withCoherenceAndError() { return new FrfTable(title, hz, entries, true); }
 
     private FrfTable with(Entry e) {
         List<Entry> all = new ArrayList<>(entries);
         all.add(e);
-        return new FrfTable(title, hz, all);
+        return new FrfTable(title, hz, all, quality);
     }
 
     /** Index of the line of {@code f} (increasing) nearest {@code x}. */
@@ -95,14 +101,27 @@ public final class FrfTable implements Displayable {
         return x - f[hi - 1] <= f[hi] - x ? hi - 1 : hi;
     }
 
+    /** Whether the response's line nearest some frequency asked is not that frequency (to 1e-9 relative). */
+    private boolean offLine(Entry e) {
+        if (e.model()) return false;
+        double[] f = e.frf().frequencyHz();
+        for (double x : hz) if (Math.abs(f[nearest(f, x)] - x) > 1e-9 * x) return true;
+        return false;
+    }
+
+    private boolean showsCoherence(Entry e) { return quality && !e.model() && e.frf().hasCoherence(); }
+
+    private boolean showsError(Entry e) { return quality && !e.model() && e.frf().uncertainty().isPresent(); }
+
     HtmlTable table() {
         if (entries.isEmpty()) throw new IllegalStateException("add at least one response with add(label, frf) or add(label, model)");
         List<String> header = new ArrayList<>(List.of("Frequency (Hz)"));
         for (Entry e : entries) {
+            if (offLine(e)) header.add(e.label() + ": line (Hz)");
             header.add(e.label() + ": |G| (dB)");
             header.add(e.label() + ": phase (deg)");
-            if (e.frf().hasCoherence() && !e.model()) header.add(e.label() + ": coherence");
-            if (e.frf().uncertainty().isPresent() && !e.model()) header.add(e.label() + ": rel. std. error (%)");
+            if (showsCoherence(e)) header.add(e.label() + ": coherence");
+            if (showsError(e)) header.add(e.label() + ": rel. std. error (%)");
         }
         HtmlTable t = HtmlTable.of(title, header.toArray(String[]::new));
         for (double x : hz) {
@@ -111,10 +130,11 @@ public final class FrfTable implements Displayable {
                 Frf g = e.frf();
                 int i = nearest(g.frequencyHz(), x);
                 double mag = Math.hypot(g.realAt(i), g.imagAt(i));
+                if (offLine(e)) cells.add(Figures.num(g.frequencyHz()[i]));
                 cells.add(Figures.fixed2(g.magnitudeDb()[i]));
                 cells.add(Figures.fixed2(g.phaseDegUnwrapped()[i]));
-                if (g.hasCoherence() && !e.model()) cells.add(Figures.num(g.coherence().orElseThrow()[i]));
-                if (g.uncertainty().isPresent() && !e.model()) cells.add(Figures.num(100 * g.uncertainty().orElseThrow()[i] / mag));
+                if (showsCoherence(e)) cells.add(Figures.num(g.coherence().orElseThrow()[i]));
+                if (showsError(e)) cells.add(Figures.num(100 * g.uncertainty().orElseThrow()[i] / mag));
             }
             t.row(cells.toArray(String[]::new));
         }
@@ -134,7 +154,7 @@ public final class FrfTable implements Displayable {
             for (double x : hz) far = Math.max(far, Math.abs(f[nearest(f, x)] - x));
             StringBuilder s = new StringBuilder(e.label() + ": " + f.length + " lines, " + Units.formatHz(f[0]) + " .. " + Units.formatHz(f[f.length - 1])
                     + "; read at the nearest line, " + (far == 0 ? "exactly at the frequencies asked" : "at most " + Units.formatHz(far) + " away"));
-            if (e.frf().hasCoherence()) {
+            if (showsCoherence(e)) {
                 double[] c = e.frf().coherence().orElseThrow();
                 int lo = 0;
                 for (int i = 1; i < c.length; i++) if (c[i] < c[lo]) lo = i;

@@ -25,27 +25,30 @@ class IdentificationTablesTest {
                 .withCoherence(new double[] {0.99, 0.95, 0.5, 0.97}).withUncertainty(new double[] {0.01, 0.02, 0.1, 0.05});
         // G = 1/(s + 1) at w = 1 rad/s: |G| = 1/sqrt(2) = -3.0103 dB, phase -45 deg (first-order lag, textbook definition).
         TransferFunction lag = TransferFunction.continuous(new double[] {1}, new double[] {1, 1});
-        FrfTable t = FrfTable.atHz(1 / (2 * Math.PI), 3.1).add("measured", g).add("lag", lag);
+        FrfTable t = FrfTable.atHz(1 / (2 * Math.PI), 3.1).add("measured", g).add("lag", lag).withCoherenceAndError();
         Document d = ResultTablesTest.html(t.toMimeBundle());
         List<String> header = d.select("thead th").eachText();
-        assertEquals(List.of("Frequency (Hz)", "measured: |G| (dB)", "measured: phase (deg)", "measured: coherence", "measured: rel. std. error (%)",
-                "lag: |G| (dB)", "lag: phase (deg)"), header);
+        assertEquals(List.of("Frequency (Hz)", "measured: line (Hz)", "measured: |G| (dB)", "measured: phase (deg)", "measured: coherence",
+                "measured: rel. std. error (%)", "lag: |G| (dB)", "lag: phase (deg)"), header);
         List<String> low = d.select("tbody tr").get(0).select("td").eachText();
         // 0.159 Hz: nearest line 1 Hz (below the band by less than one line spacing): |1| = 0 dB, 0 deg, coherence 0.99, 0.01/1 = 1 %.
-        assertEquals(List.of("0.1592", "0", "0", "0.99", "1"), low.subList(0, 5));
-        assertEquals(-3.0103, Double.parseDouble(low.get(5)), 0.005);
-        assertEquals(-45, Double.parseDouble(low.get(6)), 0.005);
+        assertEquals(List.of("0.1592", "1", "0", "0", "0.99", "1"), low.subList(0, 6));
+        assertEquals(-3.0103, Double.parseDouble(low.get(6)), 0.005);
+        assertEquals(-45, Double.parseDouble(low.get(7)), 0.005);
         // 3.1 Hz: nearest line 4 Hz (0.9 Hz away against 1.1 Hz to the 2 Hz line): |-2| = 6.0206 dB, phase 180 deg on the unwrapped
         // branch, sigma/|G| = 0.1/2 = 5 %; no interpolation (the line value itself).
         List<String> mid = d.select("tbody tr").get(1).select("td").eachText();
-        assertEquals(List.of("3.1", "6.02", "180", "0.5", "5"), mid.subList(0, 5));
+        assertEquals(List.of("3.1", "4", "6.02", "180", "0.5", "5"), mid.subList(0, 6));
         // lag at 3.1 Hz: w = 19.478 rad/s, |G| = -20 log10 sqrt(1 + w^2), phase -atan(w).
         double w = 2 * Math.PI * 3.1;
-        assertEquals(-10 * Math.log10(1 + w * w), Double.parseDouble(mid.get(5)), 0.005);
-        assertEquals(-Math.toDegrees(Math.atan(w)), Double.parseDouble(mid.get(6)), 0.005);
+        assertEquals(-10 * Math.log10(1 + w * w), Double.parseDouble(mid.get(6)), 0.005);
+        assertEquals(-Math.toDegrees(Math.atan(w)), Double.parseDouble(mid.get(7)), 0.005);
+        // by default magnitude and phase only, and no line column when the lines are the frequencies asked
+        Document plain = ResultTablesTest.html(FrfTable.atHz(2, 8).add("measured", g).toMimeBundle());
+        assertEquals(List.of("Frequency (Hz)", "measured: |G| (dB)", "measured: phase (deg)"), plain.select("thead th").eachText());
         String text = t.toString();
         assertTrue(text.contains("measured: 4 lines, 1 Hz .. 8 Hz; read at the nearest line, at most 0.9 Hz away; lowest coherence 0.5 at 4 Hz"), text);
-        assertEquals(text, FrfTable.atHz(1 / (2 * Math.PI), 3.1).add("measured", g).add("lag", lag).toString(), "deterministic");
+        assertEquals(text, FrfTable.atHz(1 / (2 * Math.PI), 3.1).add("measured", g).add("lag", lag).withCoherenceAndError().toString(), "deterministic");
     }
 
     @Test
