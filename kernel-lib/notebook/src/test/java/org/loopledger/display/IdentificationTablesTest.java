@@ -3,6 +3,7 @@ package org.loopledger.display;
 import org.jsoup.nodes.Document;
 import org.junit.jupiter.api.Test;
 import org.loopledger.frf.Frf;
+import org.loopledger.ident.excitation.Prbs;
 import org.loopledger.ident.fit.FitResult;
 import org.loopledger.ident.fit.ParameterEstimate;
 import org.loopledger.ident.fit.TwoMassFit;
@@ -93,6 +94,35 @@ class IdentificationTablesTest {
         assertEquals(List.of("current_measured_A", "-3", "2", "3", "1.871"), ResultTablesTest.row(d, "current_measured_A"));
         assertTrue(s.toString().contains("4096 rows at 1 kHz"), s.toString());
         assertTrue(s.toString().contains("log checks: no warnings"), s.toString());
+    }
+
+    @Test
+    void excitationCheckComparesTheLogWithTheRegeneratedPrbs() {
+        // PRBS7, one sample per bit at 1 kHz: 2^7 - 1 = 127 samples per period (maximum-length sequence), 0.127 s, lines every
+        // 1000/127 = 7.874 Hz; first null at the bit rate 1 kHz, -3 dB of sinc^2 at 0.443 of it (common practice).
+        Prbs prbs = Prbs.of(7, 1.0, 1, 2, 1000);
+        double[] logged = prbs.signal().samples();
+        ExcitationCheck same = ExcitationCheck.of(prbs, logged);
+        Document d = ResultTablesTest.html(same.toMimeBundle());
+        List<List<String>> rows = d.select("tbody tr").stream().map(r -> r.select("td").eachText()).toList();
+        assertEquals(List.of("period", "127", "samples"), rows.get(0));
+        assertEquals(List.of("0.127", "7.874", "2"), List.of(rows.get(1).get(1), rows.get(2).get(1), rows.get(3).get(1)));
+        assertEquals("0", rows.get(4).get(1));
+        assertEquals(List.of("1000", "443"), List.of(rows.get(5).get(1), rows.get(6).get(1)));
+        assertTrue(same.toString().contains("sample for sample over the 254 samples"), same.toString());
+        // shifted by one sample: a +-1 sequence differs somewhere by 2; one sample changed by 0.5 differs by 0.5
+        double[] shifted = new double[logged.length];
+        System.arraycopy(logged, 0, shifted, 1, logged.length - 1);
+        shifted[0] = logged[logged.length - 1];
+        assertEquals(2, ExcitationCheck.of(prbs, shifted).largestDifference());
+        double[] bumped = logged.clone();
+        bumped[40] += 0.5;
+        ExcitationCheck b = ExcitationCheck.of(prbs, java.util.Arrays.copyOf(bumped, 190));
+        assertEquals(0.5, b.largestDifference());
+        assertEquals(190 / 127.0, b.periodsInLog(), 1e-12);
+        assertTrue(b.toString().contains("differs from the designed signal by up to 0.5"), b.toString());
+        assertTrue(b.toString().contains("compared over the first 190"), b.toString());
+        assertThrows(IllegalArgumentException.class, () -> ExcitationCheck.of(prbs, new double[0]));
     }
 
     @Test
