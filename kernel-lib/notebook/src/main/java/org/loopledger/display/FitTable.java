@@ -28,13 +28,13 @@ public final class FitTable implements Displayable {
 
     private final String title;
     private final List<Entry> entries;
-    private final boolean errors;
+    private final boolean errorAgainstTruth;
 
-    private FitTable(String title, List<Entry> entries, boolean errors) {
+    private FitTable(String title, List<Entry> entries, boolean errorAgainstTruth) {
         if (entries.isEmpty()) throw new IllegalArgumentException("a fit table needs at least one fit; add rows with row(label, fit) or row(label, fit, truth)");
         this.title = title;
         this.entries = List.copyOf(entries);
-        this.errors = errors;
+        this.errorAgainstTruth = errorAgainstTruth;
     }
 
     public static Builder builder() { return new Builder(); }
@@ -81,8 +81,9 @@ public final class FitTable implements Displayable {
     HtmlTable table() {
         boolean truth = anyTruth();
         List<String> header = new ArrayList<>(List.of("Fit", "Parameter", "Estimate", "95 % low", "95 % high", "Unit"));
-        if (truth) header.addAll(List.of("Truth", "Truth inside the 95 % interval"));
-        if (truth && errors) header.addAll(List.of("Error (%)", "Distance (standard errors)"));
+        if (truth) header.add("Truth");
+        if (truth && errorAgainstTruth) header.add("Error against truth (%)");
+        if (truth) header.add("Truth inside the 95 % interval");
         HtmlTable t = HtmlTable.of(title, header.toArray(String[]::new));
         for (Entry e : entries) {
             List<ParameterEstimate> ps = e.fit().parameters();
@@ -99,16 +100,13 @@ public final class FitTable implements Displayable {
                         double v = x.getAsDouble();
                         outside = !p.covers(v);
                         cells.add(Figures.num(v * scale));
+                        if (errorAgainstTruth) cells.add(v == 0 ? Figures.NONE : Figures.num(100 * (p.value() / v - 1)));
                         cells.add(!outside ? "yes" : p.standardError() > 0
                                 ? "NO: " + Figures.num(p.standardErrorsFrom(v)) + " standard errors away" : "NO (no standard error)");
-                        if (errors) {
-                            cells.add(v == 0 ? Figures.NONE : Figures.fixed2(100 * (p.value() - v) / v));
-                            cells.add(p.standardError() > 0 ? Figures.fixed2(p.standardErrorsFrom(v)) : Figures.NONE);
-                        }
                     } else {
                         cells.add(Figures.NONE);
+                        if (errorAgainstTruth) cells.add(Figures.NONE);
                         cells.add("not known");
-                        if (errors) cells.addAll(List.of(Figures.NONE, Figures.NONE));
                     }
                 }
                 t.rowWithClass(outside ? "fail" : "", cells.toArray(String[]::new));
@@ -147,7 +145,7 @@ public final class FitTable implements Displayable {
     public static final class Builder {
         private final List<Entry> entries = new ArrayList<>();
         private String title = "Fitted parameters";
-        private boolean errors;
+        private boolean errorAgainstTruth;
 
         private Builder() {}
 
@@ -182,15 +180,12 @@ public final class FitTable implements Displayable {
             return this;
         }
 
-        /**
-         * Adds two columns where the truth is known: the estimate's error relative to the truth (percent) and the truth's
-         * distance from the estimate in standard errors (whether inside the interval or not).
-         */
-        public Builder showErrors() {
-            this.errors = true;
+        /** Adds a column with each estimate's error against the truth, 100·(estimate/truth − 1) %, where the truth is known and not 0. */
+        public Builder errorAgainstTruth() {
+            this.errorAgainstTruth = true;
             return this;
         }
 
-        public FitTable build() { return new FitTable(title, entries, errors); }
+        public FitTable build() { return new FitTable(title, entries, errorAgainstTruth); }
     }
 }

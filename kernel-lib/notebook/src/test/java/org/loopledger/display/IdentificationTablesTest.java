@@ -4,9 +4,6 @@ import org.jsoup.nodes.Document;
 import org.junit.jupiter.api.Test;
 import org.loopledger.frf.Frf;
 import org.loopledger.ident.excitation.Prbs;
-import org.loopledger.ident.fit.FitResult;
-import org.loopledger.ident.fit.ParameterEstimate;
-import org.loopledger.ident.fit.TwoMassFit;
 import org.loopledger.ident.fit.TwoMassParameters;
 import org.loopledger.lti.TransferFunction;
 import org.loopledger.tune.Resonance;
@@ -16,7 +13,7 @@ import java.util.List;
 
 import static org.junit.jupiter.api.Assertions.*;
 
-/** The tables notebooks 01 and 03 show: responses at chosen frequencies, resonances per load case, fit errors against the truth. */
+/** The tables notebooks 01 and 03 show: responses at chosen frequencies, resonances per load case, signal levels, the excitation check. */
 class IdentificationTablesTest {
     @Test
     void frfTableReadsMeasuredLinesWithoutInterpolationAndModelsExactly() {
@@ -83,11 +80,11 @@ class IdentificationTablesTest {
     }
 
     @Test
-    void logSummaryGivesEveryColumnsRangeAndRms() {
+    void signalLevelsGiveEveryColumnsRangeAndRms() {
         StringBuilder text = new StringBuilder("time_s,current_measured_A\n");
         double[] u = {1, -3, 2, 0};   // repeated to the 4096 rows the log checks ask for
         for (int i = 0; i < 4096; i++) text.append(i / 1000.0).append(',').append(u[i % 4]).append('\n');
-        LogSummary s = LogSummary.of(org.loopledger.ident.log.DriveLogReader.readString("small.csv", text.toString(),
+        SignalLevels s = SignalLevels.of(org.loopledger.ident.log.DriveLogReader.readString("small.csv", text.toString(),
                 org.loopledger.ident.log.LogCheckOptions.defaults()));
         Document d = ResultTablesTest.html(s.toMimeBundle());
         // min -3, max 2, peak |x| 3, RMS sqrt((1 + 9 + 4 + 0)/4) = sqrt(3.5) = 1.871 (definition).
@@ -123,23 +120,5 @@ class IdentificationTablesTest {
         assertTrue(b.toString().contains("differs from the designed signal by up to 0.5"), b.toString());
         assertTrue(b.toString().contains("compared over the first 190"), b.toString());
         assertThrows(IllegalArgumentException.class, () -> ExcitationCheck.of(prbs, new double[0]));
-    }
-
-    @Test
-    void fitTableShowsErrorsAndDistancesOnlyWhenAsked() {
-        TwoMassParameters truth = new TwoMassParameters(2.0e-4, 1e-3, 400, 0.02, 250, 0.03, 60e-6);
-        List<ParameterEstimate> est = List.of(new ParameterEstimate("inertia", "kg·m²", 2.02e-4, 1e-6, 2.0e-4, 2.04e-4),
-                new ParameterEstimate("resonance", "Hz", 405, 1, 403, 407));
-        FitResult f = new FitResult(MarginsRendererTest.CUBIC_LAG, est, List.of(), 1.1, 300, 12, List.of());
-        TwoMassFit fit = new TwoMassFit(new TwoMassParameters(2.02e-4, 1e-3, 405, 0.02, 250, 0.03, 61e-6), f);
-        Document plain = ResultTablesTest.html(FitTable.builder().row("x", fit, truth).build().toMimeBundle());
-        assertEquals(8, plain.select("thead th").size(), "the default table is unchanged");
-        Document d = ResultTablesTest.html(FitTable.builder().row("x", fit, truth).showErrors().build().toMimeBundle());
-        // inertia: (2.02e-4 - 2.0e-4)/2.0e-4 = +1 %, |2.0e-4 - 2.02e-4|/1e-6 = 2 standard errors (inside its own interval bounds as given).
-        List<String> inertia = d.select("tbody tr").get(0).select("td").eachText();
-        assertEquals(List.of("1", "2"), inertia.subList(8, 10));
-        // resonance: (405 - 400)/400 = +1.25 %, 5 standard errors.
-        List<String> res = d.select("tbody tr").get(1).select("td").eachText();
-        assertEquals(List.of("1.25", "5"), res.subList(8, 10));
     }
 }

@@ -9,21 +9,22 @@ import java.util.List;
 import java.util.Objects;
 
 /**
- * What a checked drive log holds, before anything is estimated from it: rows, sample rate and duration in the
- * caption, then one row per column (SI units, named by the log's {@code quantity_unit} header convention) with its
- * minimum, maximum, peak |x| and RMS, and below the table the log checks' warnings, or that there were none. The
- * figures a user reads to see that a small-signal test stayed small (current well under the drive's limit).
+ * The levels of every signal in a checked drive log, before anything is estimated from it: rows, sample rate and
+ * duration in the caption, then one row per column (SI units, named by the log's {@code quantity_unit} header
+ * convention) with its minimum, maximum, peak |x| and RMS, and below the table the log checks' warnings, or that
+ * there were none. The figures a user reads to see that a small-signal test stayed small (current well under the
+ * drive's limit). Where the log came from (file, digest, column origins, metadata) is the log's own display.
  *
  * <pre>{@code
- * LogSummary.of(DriveLogReader.read(path, LogCheckOptions.defaults().withSampleRateHz(16000)))
+ * SignalLevels.of(DriveLogReader.read(path, LogCheckOptions.defaults().withSampleRateHz(16000)))
  * }</pre>
  */
-public final class LogSummary implements Displayable {
+public final class SignalLevels implements Displayable {
     private final DriveLog log;
 
-    private LogSummary(DriveLog log) { this.log = log; }
+    private SignalLevels(DriveLog log) { this.log = log; }
 
-    public static LogSummary of(DriveLog log) { return new LogSummary(Objects.requireNonNull(log, "log")); }
+    public static SignalLevels of(DriveLog log) { return new SignalLevels(Objects.requireNonNull(log, "log")); }
 
     HtmlTable table() {
         String caption = log.source() + ": " + log.rows() + " rows at " + Units.formatHz(log.sampleRateHz()) + " (" + Units.formatSeconds(log.durationS()) + ")";
