@@ -27,7 +27,9 @@ public final class SignalLevels implements Displayable {
     public static SignalLevels of(DriveLog log) { return new SignalLevels(Objects.requireNonNull(log, "log")); }
 
     HtmlTable table() {
-        String caption = log.source() + ": " + log.rows() + " rows at " + Units.formatHz(log.sampleRateHz()) + " (" + Units.formatSeconds(log.durationS()) + ")";
+        String source = log.source();
+        String file = source.substring(Math.max(source.lastIndexOf('/'), source.lastIndexOf('\\')) + 1); // the file's name: same caption from any folder
+        String caption = file + ": " + log.rows() + " rows at " + Units.formatHz(log.sampleRateHz()) + " (" + Units.formatSeconds(log.durationS()) + ")";
         HtmlTable t = HtmlTable.of(caption, "Column (SI unit in the name)", "Min", "Max", "Peak |x|", "RMS");
         for (String name : log.columnNames()) {
             double[] x = log.column(name);

@@ -89,7 +89,10 @@ class IdentificationTablesTest {
         Document d = ResultTablesTest.html(s.toMimeBundle());
         // min -3, max 2, peak |x| 3, RMS sqrt((1 + 9 + 4 + 0)/4) = sqrt(3.5) = 1.871 (definition).
         assertEquals(List.of("current_measured_A", "-3", "2", "3", "1.871"), ResultTablesTest.row(d, "current_measured_A"));
-        assertTrue(s.toString().contains("4096 rows at 1 kHz"), s.toString());
+        assertTrue(s.toString().startsWith("small.csv: 4096 rows at 1 kHz"), s.toString());
+        String fromFolder = SignalLevels.of(org.loopledger.ident.log.DriveLogReader.readString("../data/small.csv", text.toString(),
+                org.loopledger.ident.log.LogCheckOptions.defaults())).toString();
+        assertEquals(s.toString(), fromFolder, "the caption names the file, not the folder it was read from");
         assertTrue(s.toString().contains("log checks: no warnings"), s.toString());
     }
 
