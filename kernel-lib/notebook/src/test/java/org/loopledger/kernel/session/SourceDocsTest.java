@@ -37,13 +37,13 @@ import static org.junit.jupiter.api.Assertions.*;
 class SourceDocsTest {
     record Expected(String file, String owner, String name, boolean method, List<String> params, String doc, List<String> paramNames) {}
 
-    static Path sources() {
+    /** The sources the jar ships for Shift-Tab: the core and notebook modules' {@code org/loopledger} trees. */
+    static List<Path> sources() {
         for (Path p = Path.of("").toAbsolutePath(); p != null; p = p.getParent()) {
-            Path s = p.resolve("kernel-lib/src/main/java/org/loopledger");
-            if (Files.isDirectory(s)) return s;
-            if (Files.isDirectory(p.resolve("src/main/java/org/loopledger"))) return p.resolve("src/main/java/org/loopledger");
+            Path core = p.resolve("kernel-lib/core/src/main/java/org/loopledger"), notebook = p.resolve("kernel-lib/notebook/src/main/java/org/loopledger");
+            if (Files.isDirectory(core) && Files.isDirectory(notebook)) return List.of(core, notebook);
         }
-        throw new IllegalStateException("library sources not found from " + Path.of("").toAbsolutePath());
+        throw new IllegalStateException("library sources (kernel-lib/core and kernel-lib/notebook) not found from " + Path.of("").toAbsolutePath());
     }
 
     static List<Expected> javacDocs(List<Path> files) throws Exception {
@@ -95,9 +95,11 @@ class SourceDocsTest {
 
     @Test
     void everyDocCommentJavacFindsIsFoundWithItsDeclaration() throws Exception {
-        List<Path> files;
-        try (Stream<Path> s = Files.walk(sources())) {
-            files = s.filter(p -> p.toString().endsWith(".java")).sorted().toList();
+        List<Path> files = new ArrayList<>();
+        for (Path root : sources()) {
+            try (Stream<Path> s = Files.walk(root)) {
+                files.addAll(s.filter(p -> p.toString().endsWith(".java")).sorted().toList());
+            }
         }
         List<Expected> expected = javacDocs(files);
         assertTrue(expected.size() > 1000, "javac found " + expected.size() + " doc comments");
