@@ -42,6 +42,14 @@ public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, Tun
     }
 
     /**
+     * The gains found. What the printouts call Kp is {@code piv().positionGainPerS()} (1/s), Kv is
+     * {@code piv().velocity().velocityGain()} (plant-input units per rad/s, or per m/s on a linear axis) and the
+     * integral corner {@code piv().velocity().integralCornerRadPerS()}; {@link #driveParameters()} lists them in a
+     * drive's units. See {@link Piv} and {@link org.loopledger.control.VelocityPi}.
+     */
+    @Override public Piv piv() { return piv; }
+
+    /**
      * The robustness half of the verdict: true when every limit of {@code spec.limits()} (phase margin, gain margin,
      * Ms, closed-loop stability) is met on every loop the tuner closes (velocity loop, position loop, loop broken at
      * the plant input) on every load case, both by the tuner's screen and by the independent re-analysis with
