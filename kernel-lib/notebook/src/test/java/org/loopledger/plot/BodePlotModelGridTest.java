@@ -115,4 +115,18 @@ class BodePlotModelGridTest {
         double[] w = FrequencyGrid.forModelRadPerS(g);
         assertEquals(10 * wn, w[w.length - 1], 1e-9 * wn);
     }
+
+    @Test
+    void aModelFrfOnAWideGridIsUnwrappedPointToPointWithoutTheCoherenceNote() {
+        // a pure 250 µs delay on the old automatic band (to 100/τ): e^{-jωτ} lags 360·f·τ deg exactly, so the plotted
+        // phase must fall monotonically; the trend rule for noisy data read the fast roll as noise (saw-tooth + note)
+        double tau = 250e-6;
+        TransferFunction d = TransferFunction.gain(1).withDelay(tau);
+        org.loopledger.frf.Frf model = org.loopledger.frf.Frf.ofModel(d, FrequencyGrid.logRadPerS(0.01 / tau, 100 / tau, 401));
+        Figure fig = BodePlot.create().add("delay", model).figure();
+        double[] x = series(fig, 1, "delay").getXData(), p = series(fig, 1, "delay").getYData();
+        assertTrue(fig.note().isEmpty(), "no coherence note under a model: " + fig.note());
+        for (int i = 1; i < x.length; i++) assertTrue(p[i] < p[i - 1], "phase rises at " + x[i] + " Hz");
+        assertEquals(-360 * x[x.length - 1] * tau, p[p.length - 1] - p[0] - 360 * x[0] * tau, 1e-6 * 360 * x[x.length - 1] * tau);
+    }
 }
