@@ -38,6 +38,15 @@ public record SpecReport(List<Row> rows, List<LoopWarning> warnings, String titl
      */
     public record Row(String requirement, String limit, String achieved, OptionalDouble frequencyHz, boolean pass,
                       double achievedValue, double limitValue) {
+        /** Whether the requirement is met; false when there is no achieved value to check. */
+        @Override public boolean pass() { return pass; }
+
+        /** The achieved value as a number in the limit's unit (Hz, deg, dB, ratio, s); NaN when there is none. */
+        @Override public double achievedValue() { return achievedValue; }
+
+        /** The limit as a number, in the same unit as {@link #achievedValue()}. */
+        @Override public double limitValue() { return limitValue; }
+
         @Override public String toString() {
             return (pass ? "PASS " : "FAIL ") + requirement + ": " + achieved + " (limit " + limit + ")"
                     + (frequencyHz.isPresent() ? " at " + org.loopledger.lti.Units.formatHz(frequencyHz.getAsDouble()) : "");

@@ -78,6 +78,9 @@ public final class FrequencyGrid {
         return f;
     }
 
+    /** Phase lag ωτ in rad of a model's delay at the top of a continuous {@link #forModelRadPerS} grid: 4π, two turns. */
+    public static final double DELAY_TOP_RAD = 4 * Math.PI;
+
     /** Points per decade of {@link #forModelRadPerS}. */
     public static final int MODEL_POINTS_PER_DECADE = 100;
 
@@ -87,7 +90,10 @@ public final class FrequencyGrid {
     /**
      * A grid in rad/s that shows a model's features, for plotting it without choosing a band. Continuous: from a
      * hundredth of the lowest pole/zero natural frequency to a hundred times the highest (two decades either side;
-     * a delay τ counts as a feature at 1/τ; with no feature at all, 0.01 .. 100 rad/s). Sampled: from the same low end
+     * a delay τ counts as a feature at 1/τ; with no feature at all, 0.01 .. 100 rad/s). With a delay the top is
+     * lowered to where the delay alone lags two turns, ω = 4π/τ ({@link #DELAY_TOP_RAD}), but kept at least a
+     * decade above the highest pole or zero: beyond that the picture is the delay's phase roll only (a 250 µs delay
+     * would otherwise put the grid near 64 kHz). Sampled: from the same low end
      * (roots mapped through s = ln(z)/T; at most a thousandth of Nyquist) up to {@link #BELOW_NYQUIST} of the Nyquist
      * frequency, as {@link #logSpacedRadPerSBelowNyquist}. {@value #MODEL_POINTS_PER_DECADE} log-spaced points per
      * decade, plus, for every root with damping ratio below {@value #LIGHT_DAMPING}, its natural frequency itself and
@@ -124,7 +130,7 @@ public final class FrequencyGrid {
             lo = Math.min(fmin / 100, hi / 1000);
         } else {
             lo = fmin / 100;
-            hi = fmax * 100;
+            hi = g.hasDelay() && g.delayS() > 0 ? delayTopRadPerS(features, fmax * 100, g.delayS()) : fmax * 100;
         }
         int n = Math.max(2, (int) Math.ceil(Math.log10(hi / lo) * MODEL_POINTS_PER_DECADE) + 1);
         double[] base = sampled ? logSpacedRadPerSBelowNyquist(Units.radPerSToHz(lo), ts, n) : logRadPerS(lo, hi, n);
@@ -143,5 +149,12 @@ public final class FrequencyGrid {
         int k = 0;
         for (int i = 0; i < a.length; i++) if (k == 0 || a[i] > a[k - 1] * (1 + 1e-12)) a[k++] = a[i];
         return Arrays.copyOf(a, k);
+    }
+
+    /** min(hi, max(10·highest root, 4π/τ)); the delay is the last feature. */
+    private static double delayTopRadPerS(List<double[]> features, double hi, double delayS) {
+        double rootsMax = 0;
+        for (int i = 0; i < features.size() - 1; i++) rootsMax = Math.max(rootsMax, features.get(i)[0]);
+        return Math.min(hi, Math.max(10 * rootsMax, DELAY_TOP_RAD / delayS));
     }
 }

@@ -53,7 +53,12 @@ public final class ServoSimulation {
         this.antiWindup = antiWindup;
     }
 
-    /** Without a current limit; set one with {@link #withCurrentLimit}. */
+    /**
+     * Without a current limit; set one with {@link #withCurrentLimit}. The plant must be continuous, strictly proper
+     * and free of a pure delay: a fitted model's delay goes into the timing's computation delay (the model
+     * {@code withoutDelay()}, and τ·f<sub>s</sub> - 0.5 samples for a continuous fit, since the simulator adds the hold
+     * itself; see {@link DriveTiming}).
+     */
     public static ServoSimulation of(TransferFunction plantToVelocity, Piv piv, FilterChain filters, DriveTiming timing) {
         Objects.requireNonNull(plantToVelocity, "plant");
         Objects.requireNonNull(piv, "piv");

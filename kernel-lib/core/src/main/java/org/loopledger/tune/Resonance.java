@@ -18,6 +18,18 @@ public record Resonance(double frequencyHz, double prominenceDb, double halfPowe
         warnings = List.copyOf(warnings);
     }
 
+    /** Frequency of the peak in Hz. */
+    @Override public double frequencyHz() { return frequencyHz; }
+
+    /** Height of the peak above the rigid-body trend in dB (|P|·ω<sup>n</sup> flattened, n net integrators). */
+    @Override public double prominenceDb() { return prominenceDb; }
+
+    /** Width of the peak 3 dB below its top, in Hz; see {@link #dampingResolved()} before trusting it. */
+    @Override public double halfPowerWidthHz() { return halfPowerWidthHz; }
+
+    /** ζ ≈ width / (2·f) from the half-power bandwidth (common practice); see {@link #dampingResolved()}. */
+    @Override public double dampingEstimate() { return dampingEstimate; }
+
     /** A resonance without warnings. */
     public Resonance(double frequencyHz, double prominenceDb, double halfPowerWidthHz, double dampingEstimate) {
         this(frequencyHz, prominenceDb, halfPowerWidthHz, dampingEstimate, List.of());

@@ -42,8 +42,34 @@ public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, Tun
     }
 
     /**
-     * The verdict: every limit met (screen and re-analysis) and every target the user stated reached.
-     * A target the user stated is part of the spec: missing it makes this false.
+     * The gains found. What the printouts call Kp is {@code piv().positionGainPerS()} (1/s), Kv is
+     * {@code piv().velocity().velocityGain()} (plant-input units per rad/s, or per m/s on a linear axis) and the
+     * integral corner {@code piv().velocity().integralCornerRadPerS()}; {@link #driveParameters()} lists them in a
+     * drive's units. See {@link Piv} and {@link org.loopledger.control.VelocityPi}.
+     */
+    @Override public Piv piv() { return piv; }
+
+    /**
+     * The robustness half of the verdict: true when every limit of {@code spec.limits()} (phase margin, gain margin,
+     * Ms, closed-loop stability) is met on every loop the tuner closes (velocity loop, position loop, loop broken at
+     * the plant input) on every load case, both by the tuner's screen and by the independent re-analysis with
+     * {@code analysis.Margins} ({@link #reanalysisMeetsSpec()}). It says nothing about bandwidth targets: a tuning
+     * can meet every limit and still miss the stated velocity-crossover or position-bandwidth target, in which
+     * case {@code limitsMet()} is true and {@link #specMet()} is false. Report {@link #specMet()} as the verdict.
+     */
+    @Override public boolean limitsMet() { return limitsMet; }
+
+    /**
+     * In words, the limit with the least headroom on the chosen tuning (what stopped a higher crossover), or the
+     * limit or target that fails; "; re-analysis misses a limit" is appended when the screen passed a loop the
+     * re-analysis rejects.
+     */
+    @Override public String bindingConstraint() { return bindingConstraint; }
+
+    /**
+     * The verdict: {@link #limitsMet()} (every robustness limit, screen and re-analysis) and every bandwidth target
+     * the user stated reached on the re-analysis ({@link #targets()}, {@link #missedTargets()}). A target the user
+     * stated is part of the spec: missing it makes this false even when every limit is met.
      */
     public boolean specMet() {
         return limitsMet && targets.stream().allMatch(TargetCheck::met);
@@ -95,7 +121,11 @@ public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, Tun
         return sb.toString();
     }
 
-    /** Whether the independent re-analysis agrees that every load case meets the spec's limits. */
+    /**
+     * Whether the independent re-analysis alone finds every loop of every load case within the spec's phase-margin,
+     * gain-margin and Ms limits (compared strictly, without the screen's guard bands); bandwidth targets are not
+     * part of it. {@link #limitsMet()} implies it for a result from {@link AutoTune}.
+     */
     public boolean reanalysisMeetsSpec() {
         for (LoadCaseFigures c : cases) {
             if (!meets(c.velocityLoop()) || !meets(c.positionLoop()) || !meets(c.plantInput())) return false;

@@ -1,6 +1,7 @@
 package org.loopledger.display;
 
 import org.loopledger.analysis.Margins;
+import org.loopledger.analysis.MeasuredLoop;
 import org.loopledger.analysis.PhaseCrossover;
 import org.loopledger.analysis.Spec;
 import org.loopledger.frf.Frf;
@@ -236,27 +237,56 @@ public final class MarginsTable implements Displayable {
         return MimeBundle.builder(toString()).put(MimeBundle.TEXT_HTML, h.append("</div>").toString()).build();
     }
 
-    /** Collects rows in order; each row's margins are computed when added. */
+    /**
+     * Collects rows in order; the margins are computed by {@link #build()}.
+     *
+     * <p>On measured loop gains the analysis estimates the net number of integrators from the low-frequency slope
+     * and warns "net integrators estimated ... (state them with withIntegrators if known)". State them here, per
+     * loop label (for every load case) with {@link #withIntegrators(String, int)}, or per row with
+     * {@link #row(String, String, Frf, int)}. The count is the number of poles at s = 0 of the loop gain: for the
+     * loops of a PIV cascade ({@code Cascade.loops()}) around a current-to-velocity plant with friction, one in the
+     * velocity loop (the PI), one in the position loop (K<sub>p</sub>/s) and two in the plant-input loop; a plant
+     * with a true integrator adds one to each loop it is in. Rows given as models ({@code TransferFunction}) or as
+     * computed {@code Margins} are not affected.
+     */
     public static final class Builder {
-        private final List<Row> rows = new ArrayList<>();
+        private record Pending(String loadCase, String loop, Frf frf, Integer integrators, TransferFunction model, Margins margins) {}
+
+        private final List<Pending> rows = new ArrayList<>();
+        private final Map<String, Integer> integratorsByLoop = new java.util.HashMap<>();
         private String title = "Margins of every loop on every load case";
         private Spec spec;
 
         private Builder() {}
 
-        /** A measured (or model-on-a-grid) loop gain. */
+        /** A measured (or model-on-a-grid) loop gain; net integrators as stated for its loop label, else estimated. */
         public Builder row(String loadCase, String loop, Frf loopGain) {
-            return row(loadCase, loop, Margins.of(Objects.requireNonNull(loopGain, () -> "loop gain of " + loadCase + " / " + loop)));
+            rows.add(new Pending(loadCase, loop, Objects.requireNonNull(loopGain, () -> "loop gain of " + loadCase + " / " + loop), null, null, null));
+            return this;
+        }
+
+        /**
+         * A measured loop gain with its net number of integrators stated (what the analysis otherwise estimates from
+         * the low-frequency slope, with a warning): the count anchors the low-frequency phase at -90° per integrator
+         * and counts the integrators as poles on the axis for the Nyquist criterion.
+         *
+         * @param integrators net integrators (poles at s = 0) of the loop gain, -3 .. 4
+         */
+        public Builder row(String loadCase, String loop, Frf loopGain, int integrators) {
+            requirePlausible(integrators);
+            rows.add(new Pending(loadCase, loop, Objects.requireNonNull(loopGain, () -> "loop gain of " + loadCase + " / " + loop), integrators, null, null));
+            return this;
         }
 
         /** A model loop gain (crossings found exactly). */
         public Builder row(String loadCase, String loop, TransferFunction loopGain) {
-            return row(loadCase, loop, Margins.of(Objects.requireNonNull(loopGain, () -> "loop gain of " + loadCase + " / " + loop)));
+            rows.add(new Pending(loadCase, loop, null, null, Objects.requireNonNull(loopGain, () -> "loop gain of " + loadCase + " / " + loop), null));
+            return this;
         }
 
-        /** Margins already computed. */
+        /** Margins already computed (e.g. from {@code MeasuredLoop.of(frf).withIntegrators(n)}). */
         public Builder row(String loadCase, String loop, Margins margins) {
-            rows.add(new Row(loadCase, loop, margins));
+            rows.add(new Pending(loadCase, loop, null, null, null, Objects.requireNonNull(margins, "margins")));
             return this;
         }
 
@@ -264,6 +294,32 @@ public final class MarginsTable implements Displayable {
         public Builder rows(String loadCase, Map<String, Frf> loops) {
             loops.forEach((loop, l) -> row(loadCase, loop, l));
             return this;
+        }
+
+        /**
+         * States the net number of integrators of every row given as an {@code Frf} whose loop is labelled {@code loop}, on every
+         * load case, added before or after this call; a count given with {@link #row(String, String, Frf, int)}
+         * takes precedence. Rows of model loop gains are not affected (their count is known).
+         *
+         * <pre>{@code
+         * MarginsTable.builder().withIntegrators(Cascade.VELOCITY_LOOP, 1).withIntegrators(Cascade.POSITION_LOOP, 1)
+         *         .withIntegrators(Cascade.PLANT_INPUT_LOOP, 2).rows("heavy head", cascade.loops()).spec(spec).build()
+         * }</pre>
+         *
+         * @param loop        the loop label, as given to {@code row} or {@code rows}
+         * @param integrators net integrators, -3 .. 4
+         */
+        public Builder withIntegrators(String loop, int integrators) {
+            Objects.requireNonNull(loop, "loop label");
+            requirePlausible(integrators);
+            integratorsByLoop.put(loop, integrators);
+            return this;
+        }
+
+        private static void requirePlausible(int integrators) {
+            if (integrators < -3 || integrators > 4) {
+                throw new IllegalArgumentException("net integrator count " + integrators + " is implausible; give a number in -3..4");
+            }
         }
 
         public Builder spec(Spec spec) {
@@ -276,6 +332,20 @@ public final class MarginsTable implements Displayable {
             return this;
         }
 
-        public MarginsTable build() { return new MarginsTable(title, rows, spec); }
+        /** Computes every row's margins and builds the table. */
+        public MarginsTable build() {
+            List<Row> out = new ArrayList<>(rows.size());
+            for (Pending p : rows) {
+                Margins m;
+                if (p.margins() != null) m = p.margins();
+                else if (p.model() != null) m = Margins.of(p.model());
+                else {
+                    Integer n = p.integrators() != null ? p.integrators() : integratorsByLoop.get(p.loop());
+                    m = n == null ? Margins.of(p.frf()) : Margins.of(MeasuredLoop.of(p.frf()).withIntegrators(n));
+                }
+                out.add(new Row(p.loadCase(), p.loop(), m));
+            }
+            return new MarginsTable(title, out, spec);
+        }
     }
 }

@@ -74,7 +74,10 @@ public final class BodePlot {
     /**
      * Adds a model's curve on a grid chosen from the model ({@link FrequencyGrid#forModelRadPerS}): two decades
      * around its poles' and zeros' natural frequencies with every lightly damped one on the grid (continuous), or up
-     * to just below the Nyquist frequency (sampled).
+     * to just below the Nyquist frequency (sampled). A continuous model with a pure delay τ stops where the delay lags
+     * two turns (ω = 4π/τ), or a decade above its highest pole or zero if that is higher. A model's phase is unwrapped
+     * point to point, and a model curve never adds the coherence note. For a chosen band use
+     * {@code add(label, Frf.ofModel(model, grid))}.
      */
     public BodePlot add(String label, TransferFunction model) {
         java.util.Objects.requireNonNull(model, "model");

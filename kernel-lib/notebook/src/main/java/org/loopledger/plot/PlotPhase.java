@@ -42,8 +42,13 @@ final class PlotPhase {
      * window's width, e.g. the steep phase drop at a light resonance), are unwrapped point to point as usual; a longer
      * unreliable run (noise) takes, point by point, the branch nearest the phase where the run began, so it scatters
      * around the trend instead of walking away. The result is then shifted as {@link #forDisplayDeg}.
+     *
+     * <p>An FRF computed from a model ({@link Frf#isComputedFromModel()}) has no noise: its phase is unwrapped point
+     * to point as it is (the trend rule would read a delay's fast phase roll as noise and draw a saw-tooth), and it never
+     * asks for the coherence note.
      */
     static Branch alongTrendDeg(Frf frf) {
+        if (frf.isComputedFromModel()) return new Branch(forDisplayDeg(frf.phaseDegUnwrapped()), false);
         double[] re = frf.real(), im = frf.imag();
         int n = re.length;
         double[] wrapped = Phase.angleRad(re, im);

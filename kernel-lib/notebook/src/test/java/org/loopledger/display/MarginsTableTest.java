@@ -180,4 +180,56 @@ class MarginsTableTest {
         var e = assertThrows(IllegalArgumentException.class, () -> MarginsTable.builder().build());
         assertTrue(e.getMessage().contains("row(loadCase, loop, loopGain)"));
     }
+
+    /**
+     * L = 2(s + 1)/(s²(0.1s + 1)) (two poles at s = 0 by construction) measured on 2 .. 200 rad/s, above the zero at
+     * 1 rad/s: the low-frequency slope there is about -20 dB/decade, so the analysis estimates one integrator and warns
+     * "state them with withIntegrators". The builder must take the stated count, per loop label and per row.
+     */
+    static Frf measuredType2() {
+        TransferFunction l = TransferFunction.continuous(new double[] {2, 2}, new double[] {0.1, 1, 0, 0});
+        double[] w = FrequencyGrid.logRadPerS(2, 200, 300);
+        Frf model = Frf.ofModel(l, w);
+        return Frf.ofParts(w, model.real(), model.imag()); // as measured data (no model origin)
+    }
+
+    static boolean estimated(MarginsTable.Row r) {
+        return r.margins().warnings().stream().anyMatch(x -> x.kind() == org.loopledger.analysis.LoopWarning.Kind.INTEGRATORS_ESTIMATED);
+    }
+
+    @Test
+    void statedIntegratorsReplaceTheSlopeEstimateAndItsWarning() {
+        Frf l = measuredType2();
+        MarginsTable plain = MarginsTable.builder().row("A", "plant-input loop", l).build();
+        MarginsTable.Row guessed = plain.rows().get(0);
+        assertTrue(estimated(guessed), "unstated on measured data: warned");
+        assertEquals(1, guessed.margins().netIntegrators(), "the slope above the zero reads as one integrator");
+        assertTrue(plain.toString().contains("withIntegrators"), "the warning names the builder method that now exists");
+
+        // by label, stated before one row and after another; a per-row count wins over the label's
+        MarginsTable t = MarginsTable.builder().row("A", "plant-input loop", l)
+                .withIntegrators("plant-input loop", 2)
+                .row("B", "plant-input loop", l)
+                .row("C", "plant-input loop", l, 1)
+                .row("A", "other loop", l)
+                .build();
+        assertEquals(2, t.rows().get(0).margins().netIntegrators(), "stated after the row was added");
+        assertEquals(2, t.rows().get(1).margins().netIntegrators(), "stated before the row was added");
+        assertFalse(estimated(t.rows().get(0)) || estimated(t.rows().get(1)), "no estimate warning once stated");
+        assertEquals(1, t.rows().get(2).margins().netIntegrators(), "the row's own count wins");
+        assertFalse(estimated(t.rows().get(2)));
+        assertTrue(estimated(t.rows().get(3)), "another label stays estimated");
+        // the stated count does not move the crossover figures of this loop (both anchors pick the same branch):
+        // PM from the model itself, exact (crossings as polynomial roots)
+        double pmModel = org.loopledger.analysis.Margins.of(TransferFunction.continuous(new double[] {2, 2}, new double[] {0.1, 1, 0, 0}))
+                .phaseMarginDeg().getAsDouble();
+        assertEquals(pmModel, t.rows().get(0).margins().phaseMarginDeg().getAsDouble(), 0.05);
+    }
+
+    @Test
+    void implausibleIntegratorCountIsRefusedWhereItIsGiven() {
+        var e = assertThrows(IllegalArgumentException.class, () -> MarginsTable.builder().withIntegrators("velocity loop", 7));
+        assertTrue(e.getMessage().contains("-3..4"), e.getMessage());
+        assertThrows(IllegalArgumentException.class, () -> MarginsTable.builder().row("A", "v", measuredType2(), -4));
+    }
 }

@@ -78,4 +78,55 @@ class BodePlotModelGridTest {
     void nullModelIsRefused() {
         assertThrows(NullPointerException.class, () -> BodePlot.create().add("none", (TransferFunction) null));
     }
+
+    /**
+     * A two-mass plant (antiresonance 250 Hz, resonance 400 Hz, both ζ = 0.03) with a 250 µs delay, as a fit with
+     * {@code withDelay()} returns it. The delay's lag is ωτ exactly (e^{-jωτ}, common practice), so above the resonance
+     * the phase can only fall; the grid must stop where the delay lags two turns (4π/τ = 8 kHz here) rather than at
+     * a hundred times 1/τ (64 kHz), and a model curve never carries the coherence note.
+     */
+    @Test
+    void delayedModelStopsWhereTheDelayLagsTwoTurnsAndItsPhaseFallsSmoothly() {
+        double wa = 2 * Math.PI * 250, wr = 2 * Math.PI * 400, tau = 250e-6;
+        TransferFunction g = TransferFunction.continuous(new double[] {1 / (wa * wa), 2 * 0.03 / wa, 1},
+                new double[] {2e-4 / (wr * wr), 2e-4 * 2 * 0.03 / wr + 1e-3 / (wr * wr), 2e-4 + 1e-3 * 2 * 0.03 / wr, 1e-3}).withDelay(tau);
+        Figure fig = BodePlot.of("two-mass with delay", g);
+        double[] x = series(fig, 1, "two-mass with delay").getXData(), p = series(fig, 1, "two-mass with delay").getYData();
+        assertEquals(2 / tau, x[x.length - 1], 1e-6 * 2 / tau, "top at 4π/τ rad/s = 2/τ Hz");
+        assertTrue(fig.note().isEmpty(), "no coherence note under a model: " + fig.note());
+        // above the resonance every step of the plotted phase goes down (a saw-tooth would jump up by ~360 deg)
+        double maxRise = Double.NEGATIVE_INFINITY;
+        for (int i = 1; i < x.length; i++) if (x[i - 1] > 600) maxRise = Math.max(maxRise, p[i] - p[i - 1]);
+        assertTrue(maxRise <= 1e-9, "largest rise above 600 Hz: " + maxRise + " deg");
+        // and the total fall from 600 Hz to the top is the delay's 360·f·τ plus the rational part's, which is small
+        // there: between 0 and the -90 deg the inertia leaves once the resonance pair's lag is spent (by construction)
+        int k = 0;
+        while (x[k] < 600) k++;
+        double delayFall = 360 * (x[x.length - 1] - x[k]) * tau;
+        double fall = p[k] - p[p.length - 1];
+        assertTrue(fall > delayFall && fall < delayFall + 90, "fall " + fall + " deg, delay alone " + delayFall + " deg");
+    }
+
+    @Test
+    void delayAboveEveryRootKeepsADecadeAboveTheHighestRoot() {
+        // resonance at 20 kHz, delay 100 µs (4π/τ = 20 kHz): the grid keeps a decade above the root, not 4π/τ
+        double wn = 2 * Math.PI * 20_000;
+        TransferFunction g = TransferFunction.continuous(new double[] {wn * wn}, new double[] {1, 2 * 0.05 * wn, wn * wn}).withDelay(100e-6);
+        double[] w = FrequencyGrid.forModelRadPerS(g);
+        assertEquals(10 * wn, w[w.length - 1], 1e-9 * wn);
+    }
+
+    @Test
+    void aModelFrfOnAWideGridIsUnwrappedPointToPointWithoutTheCoherenceNote() {
+        // a pure 250 µs delay on the old automatic band (to 100/τ): e^{-jωτ} lags 360·f·τ deg exactly, so the plotted
+        // phase must fall monotonically; the trend rule for noisy data read the fast roll as noise (saw-tooth + note)
+        double tau = 250e-6;
+        TransferFunction d = TransferFunction.gain(1).withDelay(tau);
+        org.loopledger.frf.Frf model = org.loopledger.frf.Frf.ofModel(d, FrequencyGrid.logRadPerS(0.01 / tau, 100 / tau, 401));
+        Figure fig = BodePlot.create().add("delay", model).figure();
+        double[] x = series(fig, 1, "delay").getXData(), p = series(fig, 1, "delay").getYData();
+        assertTrue(fig.note().isEmpty(), "no coherence note under a model: " + fig.note());
+        for (int i = 1; i < x.length; i++) assertTrue(p[i] < p[i - 1], "phase rises at " + x[i] + " Hz");
+        assertEquals(-360 * x[x.length - 1] * tau, p[p.length - 1] - p[0] - 360 * x[0] * tau, 1e-6 * 360 * x[x.length - 1] * tau);
+    }
 }

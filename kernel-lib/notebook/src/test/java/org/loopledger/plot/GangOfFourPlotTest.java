@@ -49,4 +49,37 @@ class GangOfFourPlotTest {
         NullPointerException e = assertThrows(NullPointerException.class, () -> GangOfFourPlot.of("x", (GangOfFour) null));
         assertTrue(e.getMessage().contains("GangOfFour.of"), e.getMessage());
     }
+
+    static List<String> yAxes(Figure fig) {
+        return fig.panels().stream().map(XYChart::getYAxisTitle).toList();
+    }
+
+    /** The y-axis titles as the notebook output's plot data carries them (what verify compares and a reader sees). */
+    static List<String> yAxesInPlotData(Figure fig) {
+        String json = org.loopledger.display.Bundles.of(fig).get(org.loopledger.display.FigureRenderer.PLOT_DATA_MIME).orElseThrow();
+        var panels = com.google.gson.JsonParser.parseString(json).getAsJsonObject().getAsJsonArray("panels");
+        List<String> out = new java.util.ArrayList<>();
+        for (var p : panels) out.add(p.getAsJsonObject().get("y_axis").getAsString());
+        return out;
+    }
+
+    @Test
+    void magnitudeAxesSayWhatTheDecibelsAreOf() {
+        // |S| and |T| are ratios (dimensionless); PS = P/(1+PC) has the plant's units (output per input), CS = C/(1+PC)
+        // the controller's (input per output): Åström and Murray, Feedback Systems, 2nd ed., §12.1 definitions.
+        GangOfFour g = GangOfFour.of(TransferFunction.continuous(new double[] {1}, new double[] {1, 0}), TransferFunction.gain(1));
+        List<String> stated = List.of("|S| (dB, dimensionless)", "|T| (dB, dimensionless)", "|PS| (dB re 1 rad/A)", "|CS| (dB re 1 A/rad)");
+        Figure withUnits = GangOfFourPlot.of("units", g, "rad", "A");
+        assertEquals(stated, yAxes(withUnits));
+        assertEquals(stated, yAxesInPlotData(withUnits));
+        // compound units are parenthesised so the ratio reads one way only
+        assertEquals(List.of("|PS| (dB re 1 (rad/s)/(N·m))", "|CS| (dB re 1 (N·m)/(rad/s))"),
+                yAxes(GangOfFourPlot.of("", g, "rad/s", "N·m")).subList(2, 4));
+        // without units: no bare "Magnitude (dB)"; the direction of PS and CS is named
+        List<String> bare = yAxesInPlotData(GangOfFourPlot.of("no units", g));
+        assertEquals(List.of("|S| (dB, dimensionless)", "|T| (dB, dimensionless)", "|PS| (dB, plant output per input)",
+                "|CS| (dB, plant input per output)"), bare);
+        var e = assertThrows(IllegalArgumentException.class, () -> GangOfFourPlot.of("", g, " ", "A"));
+        assertTrue(e.getMessage().contains("outputUnit"), e.getMessage());
+    }
 }

@@ -26,11 +26,23 @@ public final class Multisine {
     }
 
     /**
-     * @param fMinHz, fMaxHz band of the lines (fs/P ≤ fMin &lt; fMax &lt; fs/2)
+     * A Schroeder multisine with about {@code requestedLines} lines log-spaced between {@code fMinHz} and
+     * {@code fMaxHz}, each rounded to the nearest harmonic of the frequency resolution fs/P (so every line is
+     * periodic in one period and estimation on whole periods is leakage-free), equal amplitudes, scaled to
+     * {@code rms}. Example: {@code schroederLogLines(2, 2000, 260, 16000, 0.5, 16000, 4)} gives lines from
+     * 2 Hz to 2 kHz at 1 Hz resolution, 0.5 A RMS, 4 periods of 1 s at 16 kHz.
+     *
+     * @param fMinHz         lowest line in Hz; at least the resolution fs/P
+     * @param fMaxHz         highest line in Hz; above {@code fMinHz} and below the Nyquist frequency fs/2
      * @param requestedLines how many log-spaced lines to aim for; fewer remain where rounding to
-     *                       harmonics of fs/P merges neighbours
-     * @param periodSamples  P
-     * @param rms            RMS of the signal, unit of the injected quantity
+     *                       harmonics of fs/P merges neighbours (the low end of a wide band)
+     * @param periodSamples  P, samples in one period (at least 4); the resolution is fs/P
+     * @param rms            RMS of the signal, in the unit of the injected quantity (e.g. A)
+     * @param sampleRateHz   fs, the rate the signal is played at, in Hz (e.g. the drive's 16000)
+     * @param periods        how many repetitions of the period the signal holds (at least 1)
+     * @return the multisine; its {@link #signal()} is the sampled excitation
+     * @throws IllegalArgumentException for a band outside fs/P .. fs/2, fewer than 4 samples per period, no line,
+     *                                  a non-positive RMS or fewer than one period
      */
     public static Multisine schroederLogLines(double fMinHz, double fMaxHz, int requestedLines, int periodSamples, double rms,
                                               double sampleRateHz, int periods) {

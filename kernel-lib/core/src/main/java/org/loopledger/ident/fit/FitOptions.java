@@ -61,10 +61,51 @@ public record FitOptions(double torqueConstantNmPerA, boolean toPosition, double
     /** The motor constant: N·m/A on a rotary axis, N/A on a linear one ({@link Motion#motorConstantUnit()}). */
     public double motorConstantPerA() { return torqueConstantNmPerA; }
 
+    /**
+     * Sample time in s of the sampled-data form the data are compared with: &gt; 0 (see {@link #sampledAt}) makes
+     * the fit compare the data with the model's zero-order-hold equivalent at z = e<sup>jωT</sup>; 0 compares with
+     * the continuous model at s = jω. Either way the fitted parameters and {@link FitResult#model()} are those of the
+     * continuous physical model.
+     */
+    @Override public double sampleTimeS() { return sampleTimeS; }
+
+    /** Lowest frequency of the FRF used by the fit, in Hz (0: from the first point). */
+    @Override public double fLowHz() { return fLowHz; }
+
+    /** Highest frequency of the FRF used by the fit, in Hz ({@code +∞}: to the last point). */
+    @Override public double fHighHz() { return fHighHz; }
+
+    /**
+     * The same options, fitting the zero-order-hold sampled-data form at {@code sampleTimeS} (1/fs of the drive
+     * that measured the FRF): use it for an FRF measured between the drive's held current command and its sampled
+     * velocity, so that the hold's phase lag (about half a sample) and its magnitude droop are explained by the
+     * hold rather than absorbed into the fitted delay. The model returned stays continuous (the physical
+     * parameters); only the comparison with the data is sampled. 0 restores the continuous comparison. The fit band
+     * must then end at or below the Nyquist frequency 1/(2·sampleTimeS).
+     *
+     * @param sampleTimeS sample time in s (e.g. 1/16000), or 0
+     * @return a new value; this one is unchanged
+     */
     public FitOptions sampledAt(double sampleTimeS) { return new FitOptions(torqueConstantNmPerA, toPosition, sampleTimeS, fitDelay, fLowHz, fHighHz, motion); }
 
+    /**
+     * The same options, also fitting a pure delay τ, the model carrying e<sup>-sτ</sup>. The delay absorbs every lag
+     * the model does not explain: computation delay, current-loop lag near the band and, in a continuous fit
+     * ({@code sampleTimeS = 0}) of drive data, the hold's half sample. The estimate is reported as fitted (a negative
+     * value shows a model mismatch); the model uses max(0, τ).
+     *
+     * @return a new value; this one is unchanged
+     */
     public FitOptions withDelay() { return new FitOptions(torqueConstantNmPerA, toPosition, sampleTimeS, true, fLowHz, fHighHz, motion); }
 
+    /**
+     * The same options restricted to the FRF points from {@code lowHz} to {@code highHz} (inclusive), e.g. to leave
+     * out a low band dominated by friction or a high band of poor coherence.
+     *
+     * @param lowHz  lowest frequency used, Hz, at least 0
+     * @param highHz highest frequency used, Hz, above {@code lowHz}
+     * @return a new value; this one is unchanged
+     */
     public FitOptions bandHz(double lowHz, double highHz) { return new FitOptions(torqueConstantNmPerA, toPosition, sampleTimeS, fitDelay, lowHz, highHz, motion); }
 
     @Override public String toString() {

@@ -16,13 +16,16 @@ import java.util.Locale;
  * axis (a linear motor driving a compliantly coupled load) the same numbers are masses in kg, b in N·s/m,
  * k in N/m, and the ratio is the mass ratio.
  *
- * @param inertiaKgM2       J, total inertia at the motor (kg·m²), or the total moving mass (kg) on a linear axis
- * @param viscousNmsPerRad  b, in N·m·s/rad or N·s/m
- * @param resonanceHz       f<sub>r</sub> = ω<sub>r</sub>/2π
- * @param resonanceDamping  ζ<sub>r</sub>
- * @param antiresonanceHz   f<sub>a</sub> = ω<sub>a</sub>/2π
- * @param antiresonanceDamping ζ<sub>a</sub>
- * @param delayS            τ
+ * @param inertiaKgM2       J = J<sub>m</sub> + J<sub>l</sub>, the total inertia (motor plus load) seen at the motor, in kg·m²
+ *                          (the total moving mass m<sub>1</sub> + m<sub>2</sub> in kg on a linear axis); it sets the
+ *                          rigid-body slope K<sub>t</sub>/(J·s) below the antiresonance
+ * @param viscousNmsPerRad  b, the total viscous friction, in N·m·s/rad (N·s/m on a linear axis); mechanical pole at b/J
+ * @param resonanceHz       f<sub>r</sub> = ω<sub>r</sub>/2π, the resonance (peak) in Hz
+ * @param resonanceDamping  ζ<sub>r</sub>, damping ratio of the resonance (dimensionless; 1/(2ζ<sub>r</sub>) is its Q)
+ * @param antiresonanceHz   f<sub>a</sub> = ω<sub>a</sub>/2π, the antiresonance (dip) in Hz, below f<sub>r</sub>
+ * @param antiresonanceDamping ζ<sub>a</sub>, damping ratio of the antiresonance (dimensionless)
+ * @param delayS            τ, pure delay in s (0 when not fitted): the lags the model does not explain
+ *                          (see {@link FitOptions#withDelay()})
  * @param motion            which units the numbers are in
  */
 public record TwoMassParameters(double inertiaKgM2, double viscousNmsPerRad, double resonanceHz, double resonanceDamping,
@@ -37,10 +40,37 @@ public record TwoMassParameters(double inertiaKgM2, double viscousNmsPerRad, dou
         this(inertiaKgM2, viscousNmsPerRad, resonanceHz, resonanceDamping, antiresonanceHz, antiresonanceDamping, delayS, Motion.ROTARY);
     }
 
+    /** J = J<sub>m</sub> + J<sub>l</sub>, total inertia at the motor in kg·m² (total moving mass in kg on a linear axis). */
+    @Override public double inertiaKgM2() { return inertiaKgM2; }
+
+    /** b, total viscous friction in N·m·s/rad (N·s/m on a linear axis). */
+    @Override public double viscousNmsPerRad() { return viscousNmsPerRad; }
+
+    /** f<sub>r</sub>, the resonance (peak of the motor-side response) in Hz. */
+    @Override public double resonanceHz() { return resonanceHz; }
+
+    /** ζ<sub>r</sub>, damping ratio of the resonance (dimensionless). */
+    @Override public double resonanceDamping() { return resonanceDamping; }
+
+    /** f<sub>a</sub>, the antiresonance (dip of the motor-side response) in Hz. */
+    @Override public double antiresonanceHz() { return antiresonanceHz; }
+
+    /** ζ<sub>a</sub>, damping ratio of the antiresonance (dimensionless). */
+    @Override public double antiresonanceDamping() { return antiresonanceDamping; }
+
+    /** τ, the pure delay of the model in s (0 when no delay was fitted). */
+    @Override public double delayS() { return delayS; }
+
+    /**
+     * R = J<sub>l</sub>/J<sub>m</sub> = (f<sub>r</sub>/f<sub>a</sub>)² - 1, load to motor inertia (or mass) ratio,
+     * exact for an undamped coupling.
+     */
     public double inertiaRatio() { return Math.pow(resonanceHz / antiresonanceHz, 2) - 1; }
 
+    /** J<sub>m</sub> = J/(1 + R), motor-side inertia in kg·m² (mass in kg on a linear axis); undamped coupling assumed. */
     public double motorInertiaKgM2() { return inertiaKgM2 / (1 + inertiaRatio()); }
 
+    /** J<sub>l</sub> = J - J<sub>m</sub>, load-side inertia in kg·m² (mass in kg on a linear axis); undamped coupling assumed. */
     public double loadInertiaKgM2() { return inertiaKgM2 - motorInertiaKgM2(); }
 
     /** k in N·m/rad, or N/m on a linear axis. */
