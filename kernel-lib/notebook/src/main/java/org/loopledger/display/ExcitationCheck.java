@@ -92,18 +92,7 @@ public final class ExcitationCheck implements Displayable {
         return v;
     }
 
-    @Override public String toString() {
-        StringBuilder t = new StringBuilder(table().toText());
-        for (String s : verdicts()) t.append(s).append('\n');
-        return t.toString().stripTrailing();
-    }
+    @Override public String toString() { return TableWithNotes.text(table(), verdicts()); }
 
-    @Override public MimeBundle toMimeBundle() {
-        StringBuilder h = new StringBuilder("<div class=\"loopledger-excitation-check\">");
-        table().appendTo(h);
-        h.append("<ul>");
-        for (String s : verdicts()) h.append("<li>").append(HtmlEscape.escape(s)).append("</li>");
-        h.append("</ul></div>");
-        return MimeBundle.builder(toString()).put(MimeBundle.TEXT_HTML, h.toString()).build();
-    }
+    @Override public MimeBundle toMimeBundle() { return TableWithNotes.bundle("loopledger-excitation-check", table(), verdicts()); }
 }

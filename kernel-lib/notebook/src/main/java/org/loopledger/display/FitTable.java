@@ -126,20 +126,9 @@ public final class FitTable implements Displayable {
         return v;
     }
 
-    @Override public String toString() {
-        StringBuilder t = new StringBuilder(table().toText());
-        for (String v : verdicts()) t.append(v).append('\n');
-        return t.toString().stripTrailing();
-    }
+    @Override public String toString() { return TableWithNotes.text(table(), verdicts()); }
 
-    @Override public MimeBundle toMimeBundle() {
-        StringBuilder h = new StringBuilder("<div class=\"loopledger-fit\">");
-        table().appendTo(h);
-        h.append("<ul>");
-        for (String v : verdicts()) h.append("<li>").append(HtmlEscape.escape(v)).append("</li>");
-        h.append("</ul></div>");
-        return MimeBundle.builder(toString()).put(MimeBundle.TEXT_HTML, h.toString()).build();
-    }
+    @Override public MimeBundle toMimeBundle() { return TableWithNotes.bundle("loopledger-fit", table(), verdicts()); }
 
     /** Collects fits in order. */
     public static final class Builder {

@@ -165,18 +165,7 @@ public final class FrfTable implements Displayable {
         return n;
     }
 
-    @Override public String toString() {
-        StringBuilder t = new StringBuilder(table().toText());
-        for (String s : notes()) t.append(s).append('\n');
-        return t.toString().stripTrailing();
-    }
+    @Override public String toString() { return TableWithNotes.text(table(), notes()); }
 
-    @Override public MimeBundle toMimeBundle() {
-        StringBuilder h = new StringBuilder("<div class=\"loopledger-frf-table\">");
-        table().appendTo(h);
-        h.append("<ul>");
-        for (String s : notes()) h.append("<li>").append(HtmlEscape.escape(s)).append("</li>");
-        h.append("</ul></div>");
-        return MimeBundle.builder(toString()).put(MimeBundle.TEXT_HTML, h.toString()).build();
-    }
+    @Override public MimeBundle toMimeBundle() { return TableWithNotes.bundle("loopledger-frf-table", table(), notes()); }
 }
