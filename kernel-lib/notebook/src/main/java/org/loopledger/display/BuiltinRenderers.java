@@ -24,6 +24,7 @@ final class BuiltinRenderers {
         r.register(org.loopledger.sim.ResponseMetrics.class, ResultRenderers::response);
         r.register(org.loopledger.tune.TuningResult.class, ResultRenderers::tuning);
         r.register(org.loopledger.tune.Resonance.class, ResultRenderers::resonance);
+        r.register(org.loopledger.tune.NotchProposal.class, ResultRenderers::notchProposal);
         r.register(org.loopledger.control.Piv.class, p -> DriveGains.of(p).toMimeBundle());
         r.register(org.loopledger.control.VelocityPi.class, v -> DriveGains.of(v).toMimeBundle());
         r.register(org.loopledger.control.Pid.class, p -> DriveGains.of(p).toMimeBundle());

@@ -167,6 +167,18 @@ public final class ResultRenderers {
         return t.append("Caution: ").append(PivParameters.CAUTION).toString();
     }
 
+    /**
+     * A notch proposal: its full report ({@link NotchProposalText}: resonances, the notch, the tuning without it, the
+     * same gains with it on every load case, the re-tuning and whether the notch pays) with the drive caution, as text
+     * and as preformatted HTML (never wrapped mid-number).
+     */
+    public static MimeBundle notchProposal(org.loopledger.tune.NotchProposal p) {
+        String text = NotchProposalText.of(p) + "\nCaution: " + PivParameters.CAUTION;
+        String html = "<div class=\"loopledger-notch-proposal\"><p><strong>" + HtmlEscape.escape(p.pays() ? "The notch pays." : "The notch does not pay here.")
+                + "</strong></p><pre>" + HtmlEscape.escape(text) + "</pre></div>";
+        return html(text, html);
+    }
+
     /** A found resonance: frequency, prominence, half-power width, damping estimate, and any warning about its resolution. */
     public static MimeBundle resonance(Resonance r) {
         StringBuilder h = new StringBuilder("<div class=\"loopledger-resonance\">");
