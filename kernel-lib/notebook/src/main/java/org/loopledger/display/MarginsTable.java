@@ -9,6 +9,7 @@ import org.loopledger.lti.TransferFunction;
 import org.loopledger.lti.Units;
 
 import java.util.ArrayList;
+import java.util.LinkedHashMap;
 import java.util.List;
 import java.util.Map;
 import java.util.Objects;
@@ -199,9 +200,12 @@ public final class MarginsTable implements Displayable {
 
     private List<WorstMargin> worsts() { return List.of(worstPhaseMargin(), worstGainMargin(), worstSensitivityPeak()); }
 
+    /** The analyses' warnings, one line per distinct message, naming every row it applies to (in row order). */
     private List<String> warnings() {
+        Map<String, List<String>> rowsByMessage = new LinkedHashMap<>();
+        for (Row r : rows) for (var s : r.margins().warnings()) rowsByMessage.computeIfAbsent(s.message(), m -> new ArrayList<>()).add(label(r));
         List<String> w = new ArrayList<>();
-        for (Row r : rows) for (var s : r.margins().warnings()) w.add(label(r) + ": " + s.message());
+        rowsByMessage.forEach((message, labels) -> w.add(String.join(", ", labels) + ": " + message));
         return w;
     }
 

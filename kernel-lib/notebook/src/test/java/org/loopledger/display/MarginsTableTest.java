@@ -130,6 +130,22 @@ class MarginsTableTest {
     }
 
     @Test
+    void aWarningSharedByRowsIsWrittenOnceNamingEveryRow() {
+        // The same measured type-1 loop (1/(s(s+1)), 0.1 to 10 rad/s) as two load cases: the analysis estimates its
+        // integrator from the slope on both rows, with the same message; the table says it once for both.
+        double[] w = FrequencyGrid.logRadPerS(0.1, 10, 300);
+        Frf model = Frf.ofModel(TYPE1, w);
+        double[] re = new double[w.length], im = new double[w.length];
+        for (int i = 0; i < w.length; i++) { re[i] = model.realAt(i); im[i] = model.imagAt(i); }
+        Frf measured = Frf.ofParts(w, re, im);
+        MarginsTable t = MarginsTable.builder().row("first", "loop", measured).row("second", "loop", measured).build();
+        String text = t.toString();
+        List<String> lines = text.lines().filter(l -> l.contains("net integrators estimated")).toList();
+        assertEquals(1, lines.size(), text);
+        assertTrue(lines.get(0).contains("first / loop, second / loop: "), text);
+    }
+
+    @Test
     void anMsPeakAtTheEdgeOfTheMeasuredBandIsNotCalledMet() {
         // |S| of the type-1 loop rises with frequency below its peak (|S| ~ w at low w, peak near 1 rad/s by the definition
         // search above), so measured from 0.05 to 0.4 rad/s its largest value sits at the upper band edge.
