@@ -18,13 +18,13 @@ import java.util.Optional;
  * plant's frequency grid. Built from a measured plant {@link Frf} or a continuous plant model
  * {@link TransferFunction} (evaluated on a grid), the same way, so both give the same numbers:
  * <pre>
- *   velocity loop (broken at the velocity feedback, position loop open)          L<sub>v</sub> = C<sub>v</sub>·F·D·P<sub>v</sub>
- *   velocity closed loop                                                          T<sub>v</sub> = L<sub>v</sub>/(1 + L<sub>v</sub>)
- *   position loop (broken at the position feedback, velocity loop closed)         L<sub>p</sub> = K<sub>p</sub>·T<sub>v</sub>/(jω)
- *   position closed loop                                                          T<sub>p</sub> = L<sub>p</sub>/(1 + L<sub>p</sub>)
- *   plant-input loop (broken at the current/torque command, both loops closed)    L<sub>u</sub> = L<sub>v</sub>·(1 + K<sub>p</sub>/(jω)) = P·C
- *   controller on the position error                                              C = C<sub>v</sub>·F·D·(jω + K<sub>p</sub>)
- *   plant to position                                                             P = P<sub>v</sub>/(jω)
+ *   velocity loop (broken at the velocity feedback, position loop open)          L_v = C_v·F·D·P_v
+ *   velocity closed loop                                                          T_v = L_v/(1 + L_v)
+ *   position loop (broken at the position feedback, velocity loop closed)         L_p = K_p·T_v/(jω)
+ *   position closed loop                                                          T_p = L_p/(1 + L_p)
+ *   plant-input loop (broken at the current/torque command, both loops closed)    L_u = L_v·(1 + K_p/(jω)) = P·C
+ *   controller on the position error                                              C = C_v·F·D·(jω + K_p)
+ *   plant to position                                                             P = P_v/(jω)
  * </pre>
  * with P<sub>v</sub> the plant from current (or torque) command to velocity, C<sub>v</sub> the velocity PI, F the
  * filters on the current command, D the drive effects ({@link DriveTiming}: computation delay, hold, current loop).

@@ -12,9 +12,9 @@ import java.util.OptionalDouble;
  * and the closed current loop as a first-order lag. Their product D(jω) ({@link #multiplyFactor}) is
  * included in every loop gain computed by {@link Cascade}:
  * <pre>
- *   D(jω) = e<sup>-jωτ<sub>c</sub></sup> · H<sub>zoh</sub>(jω) · ω<sub>cl</sub>/(jω + ω<sub>cl</sub>),
- *   τ<sub>c</sub> = (computation delay in samples)·T,
- *   H<sub>zoh</sub>(jω) = e<sup>-jωT/2</sup> · sin(ωT/2)/(ωT/2).
+ *   D(jω) = e^(-jωτ_c) · H_{zoh}(jω) · ω_{cl}/(jω + ω_{cl}),
+ *   τ_c = (computation delay in samples)·T,
+ *   H_{zoh}(jω) = e^(-jωT/2) · sin(ωT/2)/(ωT/2).
  * </pre>
  * <ul>
  *   <li><b>Computation delay</b>: exact as e<sup>-jωτ</sup> for any fraction of a sample (a delay is exact only in

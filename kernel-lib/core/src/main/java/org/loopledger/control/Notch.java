@@ -6,8 +6,8 @@ import org.loopledger.lti.Units;
 /**
  * A second-order notch (band-stop) with centre ω<sub>0</sub>, depth D and width Δω:
  * <pre>
- *   H(s) = (s² + 2ζ<sub>z</sub>ω<sub>0</sub>s + ω<sub>0</sub>²) / (s² + 2ζ<sub>p</sub>ω<sub>0</sub>s + ω<sub>0</sub>²),
- *   ζ<sub>p</sub> = Δω/(2ω<sub>0</sub>) = 1/(2Q),   ζ<sub>z</sub> = ζ<sub>p</sub>·10<sup>-D/20</sup>.
+ *   H(s) = (s² + 2ζ_zω_0s + ω_0²) / (s² + 2ζ_pω_0s + ω_0²),
+ *   ζ_p = Δω/(2ω_0) = 1/(2Q),   ζ_z = ζ_p·10^(-D/20).
  * </pre>
  * <ul>
  *   <li><b>Centre</b> ω<sub>0</sub>: |H| is smallest there, H(jω<sub>0</sub>) = ζ<sub>z</sub>/ζ<sub>p</sub> (real, no phase).</li>

@@ -10,8 +10,8 @@ import org.loopledger.ident.fit.TwoMassParameters;
  * inertia J<sub>l</sub> = J<sub>screw</sub> + m·(lead/2π)² seen at the motor.
  *
  * <pre>
- *   J<sub>m</sub>·θ̈<sub>m</sub> = K<sub>t</sub>·i - b·θ̇<sub>m</sub> - c·(θ̇<sub>m</sub> - θ̇<sub>l</sub>) - k·(θ<sub>m</sub> - θ<sub>l</sub>)
- *   J<sub>l</sub>·θ̈<sub>l</sub> = c·(θ̇<sub>m</sub> - θ̇<sub>l</sub>) + k·(θ<sub>m</sub> - θ<sub>l</sub>)
+ *   J_m·θ̈_m = K_t·i - b·θ̇_m - c·(θ̇_m - θ̇_l) - k·(θ_m - θ_l)
+ *   J_l·θ̈_l = c·(θ̇_m - θ̇_l) + k·(θ_m - θ_l)
  * </pre>
  * Motor velocity per current: ω<sub>m</sub>/i = K<sub>t</sub>(J<sub>l</sub>s² + cs + k) /
  * (J<sub>m</sub>J<sub>l</sub>s³ + (J<sub>m</sub>c + J<sub>l</sub>c + J<sub>l</sub>b)s² + (J<sub>m</sub>k + J<sub>l</sub>k + bc)s + bk)

@@ -11,8 +11,8 @@ import org.loopledger.lti.Motion;
  * and damping c, a two-mass system with one structural resonance:
  *
  * <pre>
- *   m<sub>1</sub>·ẍ<sub>1</sub> = K<sub>f</sub>·i - b·ẋ<sub>1</sub> - c·(ẋ<sub>1</sub> - ẋ<sub>2</sub>) - k·(x<sub>1</sub> - x<sub>2</sub>)
- *   m<sub>2</sub>·ẍ<sub>2</sub> = c·(ẋ<sub>1</sub> - ẋ<sub>2</sub>) + k·(x<sub>1</sub> - x<sub>2</sub>)
+ *   m_1·ẍ_1 = K_f·i - b·ẋ_1 - c·(ẋ_1 - ẋ_2) - k·(x_1 - x_2)
+ *   m_2·ẍ_2 = c·(ẋ_1 - ẋ_2) + k·(x_1 - x_2)
  * </pre>
  * Carriage velocity per current: v<sub>1</sub>/i = K<sub>f</sub>(m<sub>2</sub>s² + cs + k) /
  * (m<sub>1</sub>m<sub>2</sub>s³ + (m<sub>1</sub>c + m<sub>2</sub>c + m<sub>2</sub>b)s² + (m<sub>1</sub>k + m<sub>2</sub>k + bc)s + bk)

@@ -8,7 +8,7 @@ import java.util.Locale;
 /**
  * Two-mass axis in modal form, current to motor velocity:
  * <pre>
- *   G(s) = K<sub>t</sub>/(J·s + b) · (s²/ω<sub>a</sub>² + 2ζ<sub>a</sub>s/ω<sub>a</sub> + 1) / (s²/ω<sub>r</sub>² + 2ζ<sub>r</sub>s/ω<sub>r</sub> + 1) · e<sup>-sτ</sup>
+ *   G(s) = K_t/(J·s + b) · (s²/ω_a² + 2ζ_as/ω_a + 1) / (s²/ω_r² + 2ζ_rs/ω_r + 1) · e^(-sτ)
  * </pre>
  * (to position: one more 1/s). For an undamped coupling the inertia ratio is
  * R = J<sub>l</sub>/J<sub>m</sub> = (ω<sub>r</sub>/ω<sub>a</sub>)² - 1, J<sub>m</sub> = J/(1 + R), and the

@@ -10,7 +10,7 @@ import java.util.Locale;
  * at the plant input, u = r - C·y (u: plant input, e.g. measured current; y: plant output, e.g. velocity):
  * <pre>
  *   u = S·r - S·C·v,   y = P·S·r + S·v,   S = 1/(1 + P·C)
- *   Ŝ  = S<sub>ru</sub>/S<sub>rr</sub>,   P̂S = S<sub>ry</sub>/S<sub>rr</sub>,   P̂ = S<sub>ry</sub>/S<sub>ru</sub>
+ *   Ŝ  = S_{ru}/S_{rr},   P̂S = S_{ry}/S_{rr},   P̂ = S_{ry}/S_{ru}
  * </pre>
  * Cross-spectra with r, which is uncorrelated with the loop's noise v, remove v from both numerator and
  * denominator (the indirect / instrumental-variable estimate; Ljung, System Identification, 2nd ed.,
