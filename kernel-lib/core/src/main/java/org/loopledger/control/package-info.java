@@ -12,7 +12,7 @@
  *
  * <p><b>Units.</b> Frequencies are given in Hz or rad/s as the factory name says ({@code Notch.ofHz},
  * {@code VelocityPi.ofRadPerS}); K<sub>v</sub> is in plant-input units (A for a current-commanded drive) per
- * rad/s (per m/s on a linear axis); {@link org.loopledger.control.PivParameters} shows the gains in a drive's units.
+ * rad/s (per m/s on a linear axis); the notebook side's {@code display.DriveGains} shows the gains in a drive's units.
  * Gains typed into a drive move real metal: try them with reduced current and speed limits first.
  */
 package org.loopledger.control;

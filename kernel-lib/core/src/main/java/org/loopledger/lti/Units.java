@@ -64,6 +64,9 @@ public final class Units {
         return r == 0 ? 0 : r; // no "-0"
     }
 
+    /** A value with 6 significant digits as a drive's parameter list shows it ({@code %.6g}, locale independent: "9.69600"). */
+    public static String digits6(double v) { return String.format(java.util.Locale.ROOT, "%.6g", v); }
+
     /** Formats a plain number with 4 significant digits, locale independent, trailing zeros dropped. */
     public static String g4(double v) {
         if (Double.isNaN(v)) return "NaN";

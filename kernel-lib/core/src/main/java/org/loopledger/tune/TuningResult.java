@@ -44,8 +44,8 @@ public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, Tun
     /**
      * The gains found. What the printouts call Kp is {@code piv().positionGainPerS()} (1/s), Kv is
      * {@code piv().velocity().velocityGain()} (plant-input units per rad/s, or per m/s on a linear axis) and the
-     * integral corner {@code piv().velocity().integralCornerRadPerS()}; {@link #driveParameters()} lists them in a
-     * drive's units. See {@link Piv} and {@link org.loopledger.control.VelocityPi}.
+     * integral corner {@code piv().velocity().integralCornerRadPerS()}; the notebook side's {@code display.DriveGains.of(piv(), motion())}
+     * lists them in a drive's units. See {@link Piv} and {@link org.loopledger.control.VelocityPi}.
      */
     @Override public Piv piv() { return piv; }
 
@@ -144,9 +144,6 @@ public record TuningResult(Piv piv, FilterChain filters, DriveTiming timing, Tun
 
     /** One line: the verdict and the binding constraint (the full report: {@code display.TuningReportText}). */
     @Override public String toString() { return headline() + " — binding: " + bindingConstraint; }
-
-    /** The gains as a drive's parameter list in the axis' own units (rotary or linear). */
-    public org.loopledger.control.PivParameters driveParameters() { return org.loopledger.control.PivParameters.of(piv, motion); }
 
     /** The velocity crossover the tuning achieved on its worst (lowest) load case, in Hz. */
     public double worstVelocityCrossoverHz() {

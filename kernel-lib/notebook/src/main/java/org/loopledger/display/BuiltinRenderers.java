@@ -17,7 +17,6 @@ final class BuiltinRenderers {
         r.register(org.loopledger.analysis.Margins.class, MarginsRenderer::render);
         r.register(org.loopledger.analysis.SpecReport.class, SpecReportRenderer::render);
         r.register(org.loopledger.control.CoefficientTable.class, ResultRenderers::coefficients);
-        r.register(org.loopledger.control.PivParameters.class, ResultRenderers::pivParameters);
         r.register(org.loopledger.ident.fit.FitResult.class, ResultRenderers::fit);
         r.register(org.loopledger.ident.fit.TwoMassFit.class, ResultRenderers::twoMassFit);
         r.register(org.loopledger.ident.fit.RigidBodyFit.class, ResultRenderers::rigidBodyFit);

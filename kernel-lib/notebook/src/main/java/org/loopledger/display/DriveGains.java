@@ -2,7 +2,6 @@ package org.loopledger.display;
 
 import org.loopledger.control.Pid;
 import org.loopledger.control.Piv;
-import org.loopledger.control.PivParameters;
 import org.loopledger.control.VelocityPi;
 import org.loopledger.lti.Motion;
 import org.loopledger.lti.Units;
@@ -132,15 +131,15 @@ public final class DriveGains implements Displayable {
 
     HtmlTable table() {
         HtmlTable t = HtmlTable.of(caption(), "Parameter", "Value", "Unit");
-        for (Row r : rows()) t.row(r.parameter(), PivParameters.digits6(r.value()), r.unit());
+        for (Row r : rows()) t.row(r.parameter(), Units.digits6(r.value()), r.unit());
         return t;
     }
 
     /** The fixed-width parameter list and the caution (deterministic). */
-    @Override public String toString() { return table().toText() + "Caution: " + PivParameters.CAUTION; }
+    @Override public String toString() { return table().toText() + "Caution: " + DriveCaution.TEXT; }
 
     @Override public MimeBundle toMimeBundle() {
         return MimeBundle.builder(toString()).put(MimeBundle.TEXT_HTML, "<div class=\"loopledger-drive-parameters\">" + table()
-                + "<p><strong>Caution.</strong> " + HtmlEscape.escape(PivParameters.CAUTION) + "</p></div>").build();
+                + "<p><strong>Caution.</strong> " + HtmlEscape.escape(DriveCaution.TEXT) + "</p></div>").build();
     }
 }

@@ -5,7 +5,6 @@ import org.loopledger.control.CoefficientTable;
 import org.loopledger.control.DriveTiming;
 import org.loopledger.control.Filter;
 import org.loopledger.control.FilterChain;
-import org.loopledger.control.PivParameters;
 import org.loopledger.lti.Units;
 
 import java.util.Locale;
@@ -71,13 +70,13 @@ public final class FilterTable implements Displayable {
     private boolean typedIntoADrive() { return coefficients != null && !coefficients.rows().isEmpty(); }
 
     @Override public String toString() {
-        return (table().toText() + (typedIntoADrive() ? "Caution: " + PivParameters.CAUTION : "")).stripTrailing();
+        return (table().toText() + (typedIntoADrive() ? "Caution: " + DriveCaution.TEXT : "")).stripTrailing();
     }
 
     @Override public MimeBundle toMimeBundle() {
         StringBuilder h = new StringBuilder("<div class=\"loopledger-filters\">");
         table().appendTo(h);
-        if (typedIntoADrive()) h.append("<p><strong>Caution.</strong> ").append(HtmlEscape.escape(PivParameters.CAUTION)).append("</p>");
+        if (typedIntoADrive()) h.append("<p><strong>Caution.</strong> ").append(HtmlEscape.escape(DriveCaution.TEXT)).append("</p>");
         return MimeBundle.builder(toString()).put(MimeBundle.TEXT_HTML, h.append("</div>").toString()).build();
     }
 }

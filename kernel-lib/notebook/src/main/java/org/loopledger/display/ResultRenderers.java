@@ -1,8 +1,8 @@
 package org.loopledger.display;
 
+import org.loopledger.lti.Units;
 import org.loopledger.analysis.Margins;
 import org.loopledger.control.CoefficientTable;
-import org.loopledger.control.PivParameters;
 import org.loopledger.ident.fit.BandQuality;
 import org.loopledger.ident.fit.FitResult;
 import org.loopledger.ident.fit.FitWarning;
@@ -80,13 +80,6 @@ public final class ResultRenderers {
         return h.append("</div>").toString();
     }
 
-    /** A drive's PIV parameter list in the axis' units, 6 significant digits, with the caution. */
-    public static MimeBundle pivParameters(PivParameters p) {
-        HtmlTable t = HtmlTable.of("PIV parameters, " + p.motion().label() + " axis (velocity gains in plant-input units, e.g. A)", "Parameter", "Value", "Unit");
-        for (PivParameters.Row r : p.rows()) t.row(r.parameter(), PivParameters.digits6(r.value()), r.unit());
-        return html(p.toString(), "<div class=\"loopledger-drive-parameters\">" + t + "<p><strong>Caution.</strong> " + HtmlEscape.escape(PivParameters.CAUTION) + "</p></div>");
-    }
-
     /** Time-response figures of one simulated excitation. */
     public static MimeBundle response(ResponseMetrics m) {
         Excitation x = m.excitation();
@@ -141,7 +134,7 @@ public final class ResultRenderers {
             h.append("</ol>");
         }
         h.append("<p>").append(r.evaluations()).append(" loop evaluations</p>");
-        h.append("<p><strong>Caution.</strong> ").append(HtmlEscape.escape(PivParameters.CAUTION)).append("</p>");
+        h.append("<p><strong>Caution.</strong> ").append(HtmlEscape.escape(DriveCaution.TEXT)).append("</p>");
         return html(tuningText(r), h.append("</div>").toString());
     }
 
@@ -164,7 +157,7 @@ public final class ResultRenderers {
             t.append("search trace:\n");
             for (String s : r.trace()) t.append("  ").append(s).append('\n');
         }
-        return t.append("Caution: ").append(PivParameters.CAUTION).toString();
+        return t.append("Caution: ").append(DriveCaution.TEXT).toString();
     }
 
     /**
@@ -173,7 +166,7 @@ public final class ResultRenderers {
      * and as preformatted HTML (never wrapped mid-number).
      */
     public static MimeBundle notchProposal(org.loopledger.tune.NotchProposal p) {
-        String text = NotchProposalText.of(p) + "\nCaution: " + PivParameters.CAUTION;
+        String text = NotchProposalText.of(p) + "\nCaution: " + DriveCaution.TEXT;
         String html = "<div class=\"loopledger-notch-proposal\"><p><strong>" + HtmlEscape.escape(p.pays() ? "The notch pays." : "The notch does not pay here.")
                 + "</strong></p><pre>" + HtmlEscape.escape(text) + "</pre></div>";
         return html(text, html);

@@ -5,7 +5,6 @@ import org.jsoup.nodes.Document;
 import org.junit.jupiter.api.Test;
 import org.loopledger.control.Pid;
 import org.loopledger.control.Piv;
-import org.loopledger.control.PivParameters;
 import org.loopledger.control.VelocityPi;
 import org.loopledger.lti.Motion;
 
@@ -38,7 +37,7 @@ class DriveGainsTest {
         assertEquals(0.3 * 2 * Math.PI / 60, value(d, "velocity gain Kv", "A/rpm"), 1e-6 * 0.0314);
         // Ti = 1/ωi = 1/(2π·20 Hz) = 7.958 ms.
         assertEquals(1e3 / (2 * Math.PI * 20), value(d, "velocity-integral time Ti", "ms"), 1e-5);
-        assertTrue(d.text().contains(PivParameters.CAUTION), "caution beside numbers typed into a drive");
+        assertTrue(d.text().contains(DriveCaution.TEXT), "caution beside numbers typed into a drive");
     }
 
     @Test
@@ -65,7 +64,7 @@ class DriveGainsTest {
         assertEquals(500, value(p, "derivative filter corner", "Hz"), 1e-3);
         // τ = 1/(2π·500 Hz) = 0.3183 ms.
         assertEquals(1e3 / (2 * Math.PI * 500), value(p, "derivative filter time constant", "ms"), 1e-6);
-        assertTrue(p.text().contains(PivParameters.CAUTION));
+        assertTrue(p.text().contains(DriveCaution.TEXT));
     }
 
     @Test
@@ -79,7 +78,7 @@ class DriveGainsTest {
     void textIsDeterministicAndEndsWithTheCaution() {
         String a = Bundles.of(Piv.of(50, 0.3, 20)).plainText(), b = Bundles.of(Piv.of(50, 0.3, 20)).plainText();
         assertEquals(a, b);
-        assertTrue(a.endsWith("Caution: " + PivParameters.CAUTION), a);
+        assertTrue(a.endsWith("Caution: " + DriveCaution.TEXT), a);
         assertFalse(a.contains("@"));
     }
 }

@@ -6,7 +6,6 @@ import org.junit.jupiter.api.Test;
 import org.loopledger.control.DriveTiming;
 import org.loopledger.control.FilterChain;
 import org.loopledger.control.Notch;
-import org.loopledger.control.PivParameters;
 
 import java.util.List;
 
@@ -32,8 +31,8 @@ class FilterTableTest {
             assertFalse(r.get(2 + i).contains(" "), "a number is one word: " + r.get(2 + i));
         }
         assertFalse(html.contains("style="), "no styling that could break a number");
-        assertTrue(d.text().contains(PivParameters.CAUTION));
-        assertTrue(b.plainText().endsWith("Caution: " + PivParameters.CAUTION), b.plainText());
+        assertTrue(d.text().contains(DriveCaution.TEXT));
+        assertTrue(b.plainText().endsWith("Caution: " + DriveCaution.TEXT), b.plainText());
         assertEquals(b.plainText(), FilterTable.of(FilterChain.of(Notch.ofHzAndQ(1000, 200, 2)), 16000).toString(), "deterministic");
     }
 

@@ -6,7 +6,6 @@ import org.junit.jupiter.api.Test;
 import org.loopledger.control.DriveTiming;
 import org.loopledger.control.FilterChain;
 import org.loopledger.control.Piv;
-import org.loopledger.control.PivParameters;
 import org.loopledger.frf.FrequencyGrid;
 import org.loopledger.frf.Frf;
 import org.loopledger.ident.fit.FitOptions;
@@ -107,7 +106,6 @@ class LinearAxisUnitsTest {
         assertEquals(kv / 1000, Double.parseDouble(kv2.get(1)), 5e-6 * kv / 1000);
         assertEquals(kp * 60 / 1000, Double.parseDouble(kp2.get(1)), 5e-6 * kp * 60 / 1000);
         assertFalse(d.text().contains("rad"), d.text());
-        assertEquals(PivParameters.of(t.piv(), Motion.LINEAR), t.driveParameters());
 
         // simulated responses on the fitted model say m and m/s, and "force" for the disturbance
         ServoSimulation sim = ServoSimulation.of(model, t.piv(), t.filters(), DriveTiming.sampledAtHz(8000)).withMotion(Motion.LINEAR);
@@ -151,17 +149,17 @@ class LinearAxisUnitsTest {
     void driveParameterListsCarryTheAxisUnitsAndTheCaution() {
         Piv piv = Piv.of(150, 9696, 20);
         // conversions by definition (common practice): (m/min)/mm = Kp·60/1000, per mm/s = Kv/1000, per rpm = Kv·2π/60, Ti = 1/(2π fi)
-        List<PivParameters.Row> lin = PivParameters.of(piv, Motion.LINEAR).rows();
-        assertEquals(List.of("1/s", "(m/min)/mm", "per m/s", "per mm/s", "Hz", "ms"), lin.stream().map(PivParameters.Row::unit).toList());
+        List<DriveGains.Row> lin = DriveGains.of(piv, Motion.LINEAR).rows();
+        assertEquals(List.of("1/s", "(m/min)/mm", "A/(m/s)", "A/(mm/s)", "Hz", "ms"), lin.stream().map(DriveGains.Row::unit).toList());
         assertEquals(9, lin.get(1).value(), 1e-12);
         assertEquals(9.696, lin.get(3).value(), 1e-12);
         assertEquals(1e3 / (2 * Math.PI * 20), lin.get(5).value(), 1e-9);
-        List<PivParameters.Row> rot = PivParameters.of(piv, Motion.ROTARY).rows();
-        assertEquals(List.of("1/s", "per rad/s", "per rpm", "Hz", "ms"), rot.stream().map(PivParameters.Row::unit).toList());
+        List<DriveGains.Row> rot = DriveGains.of(piv, Motion.ROTARY).rows();
+        assertEquals(List.of("1/s", "A/(rad/s)", "A/rpm", "Hz", "ms"), rot.stream().map(DriveGains.Row::unit).toList());
         assertEquals(9696 * 2 * Math.PI / 60, rot.get(2).value(), 1e-9);
-        MimeBundle b = Bundles.of(PivParameters.of(piv, Motion.LINEAR));
+        MimeBundle b = Bundles.of(DriveGains.of(piv, Motion.LINEAR));
         Document d = Jsoup.parse(b.get(MimeBundle.TEXT_HTML).orElseThrow());
-        assertEquals(List.of("velocity gain Kv", "9.69600", "per mm/s"), row(d, "velocity gain Kv", 1));
+        assertEquals(List.of("velocity gain Kv", "9.69600", "A/(mm/s)"), row(d, "velocity gain Kv", 1));
         assertTrue(d.text().contains("emergency stop") && b.plainText().contains("emergency stop"), "the caution travels with the numbers");
         assertFalse(d.text().contains("rad"), d.text());
     }

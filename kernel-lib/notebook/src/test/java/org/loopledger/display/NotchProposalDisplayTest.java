@@ -4,7 +4,6 @@ import org.jsoup.Jsoup;
 import org.junit.jupiter.api.Test;
 import org.loopledger.control.DriveTiming;
 import org.loopledger.control.FilterChain;
-import org.loopledger.control.PivParameters;
 import org.loopledger.frf.FrequencyGrid;
 import org.loopledger.frf.Frf;
 import org.loopledger.lti.TransferFunction;
@@ -41,7 +40,7 @@ class NotchProposalDisplayTest {
         assertTrue(text.contains("proposed " + p.notch()), text);
         assertTrue(text.contains(p.pays() ? "the notch pays" : "the notch does not pay"), text);
         assertTrue(text.contains("re-tuned with the notch"), text);
-        assertTrue(text.endsWith(PivParameters.CAUTION), text);
+        assertTrue(text.endsWith(DriveCaution.TEXT), text);
         // the resonance the proposal found is the one the axis has (within the grid's resolution)
         assertEquals(resonanceHz, p.notch().centreHz(), 0.01 * resonanceHz, text);
         assertTrue(text.contains(Units.formatHz(p.resonances().get(0).frequencyHz())) || text.contains(p.resonances().get(0).toString()), text);

@@ -42,7 +42,7 @@ class ResultRenderersTest {
         var table = FilterChain.of(LowPass1.ofHz(1000)).coefficientTable(16000);
         MimeBundle b = Bundles.of(table);
         assertTrue(b.plainText().startsWith("Filter coefficients at 16 kHz"), b.plainText());
-        assertTrue(b.plainText().endsWith("Caution: " + org.loopledger.control.PivParameters.CAUTION), "coefficients go into a drive: " + b.plainText());
+        assertTrue(b.plainText().endsWith("Caution: " + DriveCaution.TEXT), "coefficients go into a drive: " + b.plainText());
         Document d = Jsoup.parse(b.get(MimeBundle.TEXT_HTML).orElseThrow());
         List<String> r = row(d, "1");
         // Derivation by hand: Tustin prewarped at the corner, K = tan(pi·fc/fs) = tan(pi/16); b0 = b1 = K/(1+K), a1 = (K-1)/(K+1), b2 = a2 = 0.
@@ -100,7 +100,7 @@ class ResultRenderersTest {
         assertEquals(List.of("0.122", "67.6", "12.04"), c.subList(1, 4));
         assertEquals(List.of("0.3755", "44.06"), c.subList(7, 9));
         assertTrue(b.plainText().startsWith(TuningReportText.of(r)), b.plainText());
-        assertTrue(b.plainText().contains("  step <1>\n") && b.plainText().endsWith(org.loopledger.control.PivParameters.CAUTION), b.plainText());
+        assertTrue(b.plainText().contains("  step <1>\n") && b.plainText().endsWith(DriveCaution.TEXT), b.plainText());
     }
 
     @Test

@@ -8,7 +8,6 @@ import org.loopledger.control.DriveTiming;
 import org.loopledger.control.FilterChain;
 import org.loopledger.control.LowPass1;
 import org.loopledger.control.Piv;
-import org.loopledger.control.PivParameters;
 import org.loopledger.ident.fit.FitResult;
 import org.loopledger.ident.fit.ParameterEstimate;
 import org.loopledger.ident.fit.TwoMassFit;
@@ -147,11 +146,11 @@ class ResultTablesTest {
         String ta = Bundles.of(a).plainText();
         assertEquals(ta, Bundles.of(b).plainText(), "wall time never shows");
         assertFalse(ta.contains("34.9"));
-        assertTrue(ta.contains("Filter coefficients at 16 kHz") && ta.endsWith(PivParameters.CAUTION), ta);
+        assertTrue(ta.contains("Filter coefficients at 16 kHz") && ta.endsWith(DriveCaution.TEXT), ta);
         Document d = html(Bundles.of(a));
         // Low-pass 1 kHz at 16 kHz, Tustin prewarped: b0 = K/(1+K), K = tan(π/16) (ResultRenderersTest).
         double k = Math.tan(Math.PI / 16);
         assertEquals(k / (1 + k), Double.parseDouble(row(d, "1").get(2)), 1e-13);
-        assertTrue(d.text().contains(PivParameters.CAUTION));
+        assertTrue(d.text().contains(DriveCaution.TEXT));
     }
 }
