@@ -67,6 +67,9 @@ public final class Units {
     /** A value with 6 significant digits as a drive's parameter list shows it ({@code %.6g}, locale independent: "9.69600"). */
     public static String digits6(double v) { return String.format(java.util.Locale.ROOT, "%.6g", v); }
 
+    /** A filter coefficient as a drive's table needs it: sign and 15 significant digits ({@code %+.15e}, locale independent). */
+    public static String digits15(double v) { return String.format(java.util.Locale.ROOT, "%+.15e", v); }
+
     /** Formats a plain number with 4 significant digits, locale independent, trailing zeros dropped. */
     public static String g4(double v) {
         if (Double.isNaN(v)) return "NaN";

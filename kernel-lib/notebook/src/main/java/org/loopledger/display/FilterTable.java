@@ -44,7 +44,6 @@ public final class FilterTable implements Displayable {
     }
 
     /** A coefficient as the table shows it: 15 significant digits, sign always written, one word. */
-    static String digits15(double v) { return String.format(Locale.ROOT, "%+.15e", v); }
 
     HtmlTable table() {
         if (coefficients == null) {
@@ -61,7 +60,7 @@ public final class FilterTable implements Displayable {
         int i = 1;
         for (CoefficientTable.Row r : coefficients.rows()) {
             BiquadCoefficients c = r.coefficients();
-            t.row(String.valueOf(i++), r.filter().describe(), digits15(c.b0()), digits15(c.b1()), digits15(c.b2()), digits15(c.a1()), digits15(c.a2()));
+            t.row(String.valueOf(i++), r.filter().describe(), Units.digits15(c.b0()), Units.digits15(c.b1()), Units.digits15(c.b2()), Units.digits15(c.a1()), Units.digits15(c.a2()));
         }
         if (t.isEmpty()) t.row(Figures.NONE, "no filters", "", "", "", "", "");
         return t;
