@@ -116,11 +116,38 @@ final class AgentControl extends DirectExecutionControl {
         Class<?> previous = definitions.put(varName, current);
         if (previous == null || previous == current) return;
         try {
-            Field old = previous.getField(varName);
-            if (!old.getType().isPrimitive() && !Modifier.isFinal(old.getModifiers())) old.set(null, null);
+            clear(previous.getField(varName));
         } catch (ReflectiveOperationException | RuntimeException e) {
             // nothing to release
         }
+    }
+
+    /**
+     * Clears the static fields of temporary variables ({@code $1}, {@code $2}, ...) the session has dropped, so
+     * their values can be collected: a dropped snippet's wrapper class stays loaded. The names come as the
+     * argument of {@value #RENDER_LAST} and {@value #FORGET_LAST}, so releasing costs no round trip of its own.
+     */
+    private void releaseDropped(Object arg) {
+        if (!(arg instanceof String[] names)) return;
+        for (String name : names) {
+            Class<?> wrapper = definitions.remove(name);
+            if (wrapper == null) continue;
+            try {
+                clear(wrapper.getField(name));
+            } catch (ReflectiveOperationException | RuntimeException e) {
+                // nothing to release
+            }
+        }
+    }
+
+    /**
+     * Sets a static reference field to null. JShell's wrapper classes are not public, so the public field is
+     * reached with {@code setAccessible} (they live in the unnamed module of JShell's class loader).
+     */
+    private static void clear(Field f) throws ReflectiveOperationException {
+        if (f.getType().isPrimitive() || Modifier.isFinal(f.getModifiers())) return;
+        f.setAccessible(true);
+        f.set(null, null);
     }
 
     @Override
@@ -128,14 +155,19 @@ final class AgentControl extends DirectExecutionControl {
         if (FORGET_LAST.equals(command)) {
             lastValue = null;
             hasLastValue = false;
+            releaseDropped(arg);
             return null;
         }
         if (PROVENANCE.equals(command)) return org.loopledger.provenance.Provenance.datasetsJson();
         if (!RENDER_LAST.equals(command)) return super.extensionCommand(command, arg);
-        if (!hasLastValue) return null;
+        if (!hasLastValue) {
+            releaseDropped(arg);
+            return null;
+        }
         Object value = lastValue;
         lastValue = null;
         hasLastValue = false;
+        releaseDropped(arg); // the value itself stays reachable here until it is rendered
         try {
             return Bundles.json(value);
         } catch (Throwable t) {
