@@ -59,6 +59,8 @@ public final class CellSession implements AutoCloseable {
     }
     private JShell shell;
     private AgentConnection agent;
+    /** The bundle of the last snippet's value when the agent rendered it as it ran ({@link AgentConnection#renderNext}). */
+    private volatile MimeBundle prerendered;
     /** Temporary variables dropped from JShell whose values the agent has not yet been told to release. */
     private final List<String> droppedTemporaries = new ArrayList<>();
     private volatile Thread warmUpThread;
@@ -91,7 +93,7 @@ public final class CellSession implements AutoCloseable {
 
     private void boot() {
         AgentLauncher launcher = new AgentLauncher(options.classPath(), options.agentVmOptions(),
-                new DisplayFrameSink(b -> listener.output(new CellOutput.Display(b))), this::readLine);
+                new DisplayFrameSink(b -> listener.output(new CellOutput.Display(b))), new DisplayFrameSink(b -> prerendered = b), this::readLine);
         PrintStream out = new PrintStream(new Utf8StreamSink(t -> listener.output(new CellOutput.Stream(CellOutput.Stream.STDOUT, t))), true, StandardCharsets.UTF_8);
         PrintStream err = new PrintStream(new Utf8StreamSink(t -> listener.output(new CellOutput.Stream(CellOutput.Stream.STDERR, t))), true, StandardCharsets.UTF_8);
         shell = JShell.builder()
@@ -243,8 +245,15 @@ public final class CellSession implements AutoCloseable {
             out.output(interrupted());
             return Step.STOP;
         }
+        if (last) {
+            prerendered = null;
+            agent.renderNext(true); // the cell's value then comes with the snippet's answer
+        }
         List<SnippetEvent> events = shell.eval(snip.source());
         if (!agentAlive()) throw new IllegalStateException("agent JVM ended");
+        MimeBundle rendered = prerendered;
+        prerendered = null;
+        if (last && rendered == null) agent.renderNext(false);
         Optional<CellOutput.Error> failure = Optional.empty();
         SnippetEvent main = null;
         for (SnippetEvent e : events) {
@@ -277,6 +286,11 @@ public final class CellSession implements AutoCloseable {
         if (last && isExpression(main.snippet()) && SinkResults.hides(main.snippet())) {
             forgetIfTransient(main.snippet());
             agent.forgetLast(releasing()); // e.g. the PrintStream of a closing printf: its text is already in the output
+        } else if (last && isExpression(main.snippet()) && rendered != null) {
+            forgetIfTransient(main.snippet());
+            if (!droppedTemporaries.isEmpty()) agent.forgetLast(releasing());
+            out.output(new CellOutput.Result(rendered));
+            shown[0] = true;
         } else if (last && isExpression(main.snippet())) {
             forgetIfTransient(main.snippet());
             String json = agent.renderLast(releasing());

@@ -36,6 +36,21 @@ class CellSessionTest {
         assertEquals(List.of(new CellOutput.Result(MimeBundle.ofText("42"))), r.outputs());
     }
 
+    /**
+     * Values come two ways: an expression kept as a temporary variable is rendered by the agent as it runs; a
+     * variable's name or an assignment is rendered on request. Neither may leave the other's request behind:
+     * the statement cell after them shows nothing (common practice: JShell shows these three as values).
+     */
+    @Test
+    void everyKindOfLastExpressionShowsItsValue() {
+        assertEquals("42", resultText(run("int shownVar = 42;\nshownVar")));
+        assertEquals(List.of(), run("System.out.print(\"\");").outputs());
+        assertEquals("7", resultText(run("shownVar = 7")));
+        assertEquals(List.of(), run("int notShown = 1;").outputs());
+        assertEquals("\"14\"", resultText(run("\"\" + shownVar * 2")));
+        assertEquals(List.of(), run("shownVar++;\nint notShownEither = 2;").outputs());
+    }
+
     @Test
     void declarationsAndStatementsShowNothing() {
         assertEquals(List.of(), run("int z = 5;").outputs());

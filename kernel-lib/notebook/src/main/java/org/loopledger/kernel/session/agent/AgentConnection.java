@@ -49,12 +49,27 @@ public final class AgentConnection {
     }
 
     /**
-     * Lets the agent drop its reference to the last value (when the cell shows no result).
+     * Lets the agent drop its reference to the last value (when the cell shows no result); sent without waiting
+     * for the answer.
      *
      * @param dropped names of temporary variables the session has dropped, whose values the agent may release
      */
-    public void forgetLast(java.util.List<String> dropped) throws ExecutionControl.ExecutionControlException {
-        control.extensionCommand(AgentControl.FORGET_LAST, releaseArgument(dropped));
+    public void forgetLast(java.util.List<String> dropped) {
+        launcher().sendWithoutWaiting(AgentControl.FORGET_LAST, releaseArgument(dropped));
+    }
+
+    /**
+     * Asks the agent to render the value of the next snippet it runs when that snippet is an expression kept as
+     * a temporary variable ({@code $1}, ...), and to send the bundle on the result channel
+     * ({@link AgentLauncher#RESULT_CHANNEL}) before it answers: the value then needs no round trip of its own.
+     * Sent without waiting; {@code false} withdraws the request (the snippet did not run).
+     */
+    public void renderNext(boolean render) {
+        launcher().sendWithoutWaiting(AgentControl.RENDER_NEXT, render);
+    }
+
+    private LauncherControl launcher() {
+        return (LauncherControl) control;
     }
 
     private static String[] releaseArgument(java.util.List<String> dropped) {

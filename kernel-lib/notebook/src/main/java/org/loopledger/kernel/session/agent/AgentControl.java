@@ -24,6 +24,8 @@ import java.util.Map;
 final class AgentControl extends DirectExecutionControl {
     static final String RENDER_LAST = "loopledger.renderLast";
     static final String FORGET_LAST = "loopledger.forgetLast";
+    /** Argument {@code true}: render the value of the next snippet run, when it is a temporary variable ({@link #invoke(String, String)}). */
+    static final String RENDER_NEXT = "loopledger.renderNext";
     /** Answers {@link org.loopledger.provenance.Provenance#datasetsJson()}: on the command stream, which a cell cannot redirect. */
     static final String PROVENANCE = "loopledger.provenance";
 
@@ -32,6 +34,9 @@ final class AgentControl extends DirectExecutionControl {
     private volatile boolean stopping;
     private volatile Object lastValue;
     private volatile boolean hasLastValue;
+    private volatile java.io.OutputStream resultChannel;
+    /** Set by {@value #RENDER_NEXT}; read and cleared by the next {@link #invoke(String, String)} (command thread only). */
+    private boolean renderNext;
     /** Variable name to the wrapper class that holds its current definition. */
     private final Map<String, Class<?>> definitions = new HashMap<>();
 
@@ -76,6 +81,57 @@ final class AgentControl extends DirectExecutionControl {
             throw new StoppedException();
         }
         return super.throwConvertedOtherException(ex);
+    }
+
+    /** Where {@link #invoke(String, String)} sends a value rendered at once (the launcher's result channel). */
+    void resultChannel(java.io.OutputStream out) {
+        resultChannel = out;
+    }
+
+    /**
+     * Runs a snippet; after {@value #RENDER_NEXT} and when the snippet is an expression kept as a temporary
+     * variable, also renders its value as {@value #RENDER_LAST} would and sends the bundle on the result channel
+     * before the answer, so the launcher needs no further round trip. The rendering happens after the snippet
+     * has left client code, as {@value #RENDER_LAST}'s does (a stop does not reach it).
+     */
+    @Override
+    public String invoke(String className, String methodName) throws RunException, EngineTerminationException, InternalException {
+        boolean render = renderNext;
+        renderNext = false;
+        String result = super.invoke(className, methodName);
+        java.io.OutputStream channel = resultChannel;
+        if (render && hasLastValue && channel != null && declaresTemporary(className)) {
+            byte[] frame;
+            try {
+                frame = org.loopledger.display.DisplayChannel.frame(Bundles.of(lastValue));
+            } catch (Throwable t) {
+                return result; // left for RENDER_LAST, which reports the failure
+            }
+            lastValue = null;
+            hasLastValue = false;
+            try {
+                synchronized (channel) {
+                    channel.write(frame);
+                    channel.flush();
+                }
+            } catch (java.io.IOException e) {
+                throw new EngineTerminationException("the result channel closed: " + e.getMessage());
+            }
+        }
+        return result;
+    }
+
+    /** Whether the wrapper class holds a temporary variable ({@code $1}, {@code $2}, ... as JShell names them). */
+    private boolean declaresTemporary(String className) {
+        try {
+            for (Field f : findClass(className).getFields()) {
+                String n = f.getName();
+                if (Modifier.isStatic(f.getModifiers()) && n.length() > 1 && n.charAt(0) == '$' && n.substring(1).chars().allMatch(Character::isDigit)) return true;
+            }
+        } catch (ClassNotFoundException | RuntimeException | LinkageError e) {
+            // not ours to render
+        }
+        return false;
     }
 
     /** Runs a snippet's wrapper method and keeps its value for {@value #RENDER_LAST}. */
@@ -156,6 +212,10 @@ final class AgentControl extends DirectExecutionControl {
             lastValue = null;
             hasLastValue = false;
             releaseDropped(arg);
+            return null;
+        }
+        if (RENDER_NEXT.equals(command)) {
+            renderNext = Boolean.TRUE.equals(arg);
             return null;
         }
         if (PROVENANCE.equals(command)) return org.loopledger.provenance.Provenance.datasetsJson();
