@@ -13,12 +13,17 @@ import java.util.Map;
 /**
  * The execution control inside the remote agent JVM: JShell's direct control plus
  * <ul>
- *   <li>stopping the snippet's thread even in a tight loop ({@link #stopClientCode}), and</li>
+ *   <li>stopping the snippet's thread even in a tight loop ({@link #stopClientCode});</li>
  *   <li>the extension command {@value #RENDER_LAST}, which renders the value of the last variable whose
  *       value JShell asked for as a MIME bundle (JSON) with {@link Bundles#json}, so rich values
- *       never cross the JVM boundary and no second snippet needs compiling, and</li>
+ *       never cross the JVM boundary and no second snippet needs compiling;</li>
  *   <li>the extension command {@value #PROVENANCE}, the datasets the session read (as JSON), so the
- *       runner learns them even when a cell has replaced {@code System.out}.</li>
+ *       runner learns them even when a cell has replaced {@code System.out};</li>
+ *   <li>the extension command {@value #RENDER_NEXT}, after which the next snippet's value, when it is a
+ *       temporary variable, is rendered at once and sent on the result channel before the answer
+ *       ({@link #invoke(String, String)}), so a cell's value costs no round trip of its own, and</li>
+ *   <li>releasing the values of temporary variables the session dropped (the argument of
+ *       {@value #RENDER_LAST} and {@value #FORGET_LAST}).</li>
  * </ul>
  */
 final class AgentControl extends DirectExecutionControl {
