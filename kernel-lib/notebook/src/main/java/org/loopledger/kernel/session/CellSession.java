@@ -59,6 +59,10 @@ public final class CellSession implements AutoCloseable {
     }
     private JShell shell;
     private AgentConnection agent;
+    /** The bundle of the last snippet's value when the agent rendered it as it ran ({@link AgentConnection#renderNext}). */
+    private volatile MimeBundle prerendered;
+    /** Temporary variables dropped from JShell whose values the agent has not yet been told to release. */
+    private final List<String> droppedTemporaries = new ArrayList<>();
     private volatile Thread warmUpThread;
     private volatile boolean warmUpStopped;
 
@@ -89,7 +93,7 @@ public final class CellSession implements AutoCloseable {
 
     private void boot() {
         AgentLauncher launcher = new AgentLauncher(options.classPath(), options.agentVmOptions(),
-                new DisplayFrameSink(b -> listener.output(new CellOutput.Display(b))), this::readLine);
+                new DisplayFrameSink(b -> listener.output(new CellOutput.Display(b))), new DisplayFrameSink(b -> prerendered = b), this::readLine);
         PrintStream out = new PrintStream(new Utf8StreamSink(t -> listener.output(new CellOutput.Stream(CellOutput.Stream.STDOUT, t))), true, StandardCharsets.UTF_8);
         PrintStream err = new PrintStream(new Utf8StreamSink(t -> listener.output(new CellOutput.Stream(CellOutput.Stream.STDERR, t))), true, StandardCharsets.UTF_8);
         shell = JShell.builder()
@@ -122,7 +126,7 @@ public final class CellSession implements AutoCloseable {
                     if (warmUpStopped) break;
                     for (SnippetEvent e : shell.eval(src)) shell.drop(e.snippet());
                 }
-                agent.forgetLast();
+                agent.forgetLast(List.of());
             } catch (Exception | Error e) {
                 // warm-up only
             }
@@ -223,7 +227,14 @@ public final class CellSession implements AutoCloseable {
             }
             if (step == Step.STOP) return;
         }
-        if (!shown[0]) agent.forgetLast();
+        if (!shown[0]) agent.forgetLast(releasing());
+    }
+
+    /** The dropped temporaries to release with the next command to the agent (the list is then emptied). */
+    private List<String> releasing() {
+        List<String> names = List.copyOf(droppedTemporaries);
+        droppedTemporaries.clear();
+        return names;
     }
 
     private enum Step { NEXT, STOP, GROUP_REJECTED }
@@ -234,8 +245,15 @@ public final class CellSession implements AutoCloseable {
             out.output(interrupted());
             return Step.STOP;
         }
+        if (last) {
+            prerendered = null;
+            agent.renderNext(true); // the cell's value then comes with the snippet's answer
+        }
         List<SnippetEvent> events = shell.eval(snip.source());
         if (!agentAlive()) throw new IllegalStateException("agent JVM ended");
+        MimeBundle rendered = prerendered;
+        prerendered = null;
+        if (last && rendered == null) agent.renderNext(false);
         Optional<CellOutput.Error> failure = Optional.empty();
         SnippetEvent main = null;
         for (SnippetEvent e : events) {
@@ -262,13 +280,20 @@ public final class CellSession implements AutoCloseable {
         }
         if (failure.isPresent()) {
             out.output(failure.get());
-            agent.forgetLast();
+            agent.forgetLast(releasing());
             return Step.STOP;
         }
         if (last && isExpression(main.snippet()) && SinkResults.hides(main.snippet())) {
-            agent.forgetLast(); // e.g. the PrintStream of a closing printf: its text is already in the output
+            forgetIfTransient(main.snippet());
+            agent.forgetLast(releasing()); // e.g. the PrintStream of a closing printf: its text is already in the output
+        } else if (last && isExpression(main.snippet()) && rendered != null) {
+            forgetIfTransient(main.snippet());
+            if (!droppedTemporaries.isEmpty()) agent.forgetLast(releasing());
+            out.output(new CellOutput.Result(rendered));
+            shown[0] = true;
         } else if (last && isExpression(main.snippet())) {
-            String json = agent.renderLast();
+            forgetIfTransient(main.snippet());
+            String json = agent.renderLast(releasing());
             if (json != null) {
                 out.output(new CellOutput.Result(MimeBundle.fromJson(json)));
                 shown[0] = true;
@@ -280,13 +305,18 @@ public final class CellSession implements AutoCloseable {
     }
 
     /**
-     * Drops a statement (or an assignment or variable-value expression) once it has run: it declares
-     * nothing, and every snippet JShell keeps makes each later compilation a little slower.
+     * Drops a snippet that declares nothing a user named once it has run: a statement, an assignment or
+     * variable-value expression, or the temporary variable ({@code $1}, {@code $2}, ...) JShell makes of an
+     * expression's value. Every snippet JShell keeps makes each later compilation slower (each later wrapper
+     * imports every kept variable), and the kernel never shows the temporary's name. A dropped temporary's value
+     * is released in the agent with the next render or forget command.
      */
     private void forgetIfTransient(Snippet s) {
-        if (s.kind() == Snippet.Kind.STATEMENT || s.kind() == Snippet.Kind.EXPRESSION) {
+        boolean temporary = s instanceof VarSnippet && s.subKind() == Snippet.SubKind.TEMP_VAR_EXPRESSION_SUBKIND;
+        if (s.kind() == Snippet.Kind.STATEMENT || s.kind() == Snippet.Kind.EXPRESSION || temporary) {
             try {
                 shell.drop(s);
+                if (temporary) droppedTemporaries.add(((VarSnippet) s).name());
             } catch (IllegalArgumentException | IllegalStateException e) {
                 // already gone
             }
@@ -323,6 +353,7 @@ public final class CellSession implements AutoCloseable {
             // already closed
         }
         origins.clear();
+        droppedTemporaries.clear();
         boot();
     }
 

@@ -36,6 +36,21 @@ class CellSessionTest {
         assertEquals(List.of(new CellOutput.Result(MimeBundle.ofText("42"))), r.outputs());
     }
 
+    /**
+     * Values come two ways: an expression kept as a temporary variable is rendered by the agent as it runs; a
+     * variable's name or an assignment is rendered on request. Neither may leave the other's request behind:
+     * the statement cell after them shows nothing (common practice: JShell shows these three as values).
+     */
+    @Test
+    void everyKindOfLastExpressionShowsItsValue() {
+        assertEquals("42", resultText(run("int shownVar = 42;\nshownVar")));
+        assertEquals(List.of(), run("System.out.print(\"\");").outputs());
+        assertEquals("7", resultText(run("shownVar = 7")));
+        assertEquals(List.of(), run("int notShown = 1;").outputs());
+        assertEquals("\"14\"", resultText(run("\"\" + shownVar * 2")));
+        assertEquals(List.of(), run("shownVar++;\nint notShownEither = 2;").outputs());
+    }
+
     @Test
     void declarationsAndStatementsShowNothing() {
         assertEquals(List.of(), run("int z = 5;").outputs());
@@ -149,6 +164,33 @@ class CellSessionTest {
         assertTrue(c.matches().contains("toUpperCase("), c.toString());
         assertEquals(9, c.start());
         assertTrue(session.inspect("Math.max(", 9).orElseThrow().contains("max(int"));
+    }
+
+    /**
+     * A cell's shown value is not kept by the session: the temporary variable JShell makes of it is dropped and
+     * its field cleared in the agent, so a large result can be collected (and later compilations do not import it).
+     * The value itself is held only through a weak reference; {@code System.gc()} with the agent's serial
+     * collector is a full collection, which clears weak references to unreachable objects (JLS 12.6, java.lang.ref).
+     */
+    @Test
+    void aShownValueIsNotKeptAlive() {
+        assertTrue(run("java.lang.ref.WeakReference<Object> probe = null;\n"
+                + "Object made() { Object o = new int[] {1, 2}; probe = new java.lang.ref.WeakReference<>(o); return o; }").ok());
+        assertEquals("[1, 2]", resultText(run("made()")));
+        assertEquals("true", resultText(run("System.gc();\nprobe.get() == null")));
+        // an expression in the middle of a cell is not kept either
+        assertTrue(run("made();\nint afterMade = 1;").ok());
+        assertEquals("true", resultText(run("System.gc();\nprobe.get() == null")));
+        // a variable declared again releases its old value (the old wrapper class stays loaded)
+        assertTrue(run("Object held = made();").ok());
+        assertEquals("false", resultText(run("System.gc();\nprobe.get() == null")));
+        assertTrue(run("Object held = \"other\";").ok());
+        assertEquals("true", resultText(run("System.gc();\nprobe.get() == null")));
+    }
+
+    private static String resultText(CellResult r) {
+        assertEquals(1, r.outputs().size(), r.toString());
+        return ((CellOutput.Result) r.outputs().get(0)).bundle().get(MimeBundle.TEXT_PLAIN).orElseThrow();
     }
 
     @Test

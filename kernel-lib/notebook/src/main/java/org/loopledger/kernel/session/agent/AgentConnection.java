@@ -38,15 +38,42 @@ public final class AgentConnection {
         }
     }
 
-    /** Renders the value of the last expression in the agent as MIME bundle JSON; null if none. */
-    public String renderLast() throws ExecutionControl.ExecutionControlException {
-        Object r = control.extensionCommand(AgentControl.RENDER_LAST, null);
+    /**
+     * Renders the value of the last expression in the agent as MIME bundle JSON; null if none.
+     *
+     * @param dropped names of temporary variables the session has dropped, whose values the agent may release
+     */
+    public String renderLast(java.util.List<String> dropped) throws ExecutionControl.ExecutionControlException {
+        Object r = control.extensionCommand(AgentControl.RENDER_LAST, releaseArgument(dropped));
         return r instanceof String s ? s : null;
     }
 
-    /** Lets the agent drop its reference to the last value (when the cell shows no result). */
-    public void forgetLast() throws ExecutionControl.ExecutionControlException {
-        control.extensionCommand(AgentControl.FORGET_LAST, null);
+    /**
+     * Lets the agent drop its reference to the last value (when the cell shows no result); sent without waiting
+     * for the answer.
+     *
+     * @param dropped names of temporary variables the session has dropped, whose values the agent may release
+     */
+    public void forgetLast(java.util.List<String> dropped) {
+        launcher().sendWithoutWaiting(AgentControl.FORGET_LAST, releaseArgument(dropped));
+    }
+
+    /**
+     * Asks the agent to render the value of the next snippet it runs when that snippet is an expression kept as
+     * a temporary variable ({@code $1}, ...), and to send the bundle on the result channel
+     * ({@link AgentLauncher#RESULT_CHANNEL}) before it answers: the value then needs no round trip of its own.
+     * Sent without waiting; {@code false} withdraws the request (the snippet did not run).
+     */
+    public void renderNext(boolean render) {
+        launcher().sendWithoutWaiting(AgentControl.RENDER_NEXT, render);
+    }
+
+    private LauncherControl launcher() {
+        return (LauncherControl) control;
+    }
+
+    private static String[] releaseArgument(java.util.List<String> dropped) {
+        return dropped.isEmpty() ? null : dropped.toArray(new String[0]);
     }
 
     /** The datasets the agent's cells read, as {@link org.loopledger.provenance.Provenance#datasetsJson()} JSON. */

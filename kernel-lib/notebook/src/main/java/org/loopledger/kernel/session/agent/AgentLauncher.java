@@ -31,11 +31,14 @@ import java.util.Map;
 public final class AgentLauncher implements ExecutionControlProvider {
     /** Name of the multiplexed output stream carrying display frames. */
     public static final String DISPLAY_CHANNEL = "loopledger-display";
+    /** Name of the multiplexed output stream carrying the bundle of a value rendered as it was computed ({@link AgentConnection#renderNext}). */
+    public static final String RESULT_CHANNEL = "loopledger-result";
 
     private final String javaBinary;
     private final String classPath;
     private final List<String> vmOptions;
     private final OutputStream displaySink;
+    private final OutputStream resultSink;
     private final LineSource stdin;
     private volatile AgentConnection connection;
 
@@ -43,13 +46,15 @@ public final class AgentLauncher implements ExecutionControlProvider {
      * @param classPath   class path of the agent JVM (the library and its dependencies)
      * @param vmOptions   extra JVM options for the agent, e.g. {@code -Xmx2g}; not modified
      * @param displaySink receives the raw bytes of the display channel (length-prefixed frames)
+     * @param resultSink  receives the raw bytes of the result channel (length-prefixed frames, as the display channel's)
      * @param stdin       answers the cell's {@code System.in} reads, one line each, on a thread of its own
      */
-    public AgentLauncher(String classPath, List<String> vmOptions, OutputStream displaySink, LineSource stdin) {
+    public AgentLauncher(String classPath, List<String> vmOptions, OutputStream displaySink, OutputStream resultSink, LineSource stdin) {
         this.javaBinary = Path.of(System.getProperty("java.home"), "bin", "java").toString();
         this.classPath = classPath;
         this.vmOptions = List.copyOf(vmOptions);
         this.displaySink = displaySink;
+        this.resultSink = resultSink;
         this.stdin = stdin;
     }
 
@@ -103,7 +108,7 @@ public final class AgentLauncher implements ExecutionControlProvider {
             input.setTcpNoDelay(true);
             serveInput(input);
             OutputStream stopOut = stop.getOutputStream();
-            Map<String, OutputStream> outputs = Map.of("out", env.userOut(), "err", env.userErr(), DISPLAY_CHANNEL, displaySink);
+            Map<String, OutputStream> outputs = Map.of("out", env.userOut(), "err", env.userErr(), DISPLAY_CHANNEL, displaySink, RESULT_CHANNEL, resultSink);
             Map<String, InputStream> inputs = Map.of(); // System.in goes over the input connection
             AgentConnection made = new AgentConnection(process, stop, stopOut);
             // buffered: the agent's output arrives in packets of at most 127 bytes, read a few bytes at a time

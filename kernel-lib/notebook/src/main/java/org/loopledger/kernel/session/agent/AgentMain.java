@@ -53,7 +53,8 @@ public final class AgentMain {
         Map<String, Consumer<java.io.OutputStream>> outputs = Map.of(
                 "out", st -> System.setOut(new PrintStream(st, true, StandardCharsets.UTF_8)),
                 "err", st -> System.setErr(new PrintStream(st, true, StandardCharsets.UTF_8)),
-                AgentLauncher.DISPLAY_CHANNEL, DisplayChannel::install);
+                AgentLauncher.DISPLAY_CHANNEL, DisplayChannel::install,
+                AgentLauncher.RESULT_CHANNEL, control::resultChannel);
         // System.in is ours (AgentStdin, one line per request), not JShell's byte-by-byte remote input
         Map<String, Consumer<InputStream>> inputs = Map.of();
         // Buffered: JShell's multiplexer writes output in packets of at most 127 bytes and flushes its
