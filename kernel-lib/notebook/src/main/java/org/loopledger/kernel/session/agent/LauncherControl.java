@@ -50,10 +50,7 @@ final class LauncherControl extends StreamingExecutionControl {
     void sendWithoutWaiting(String command, Object arg) {
         try {
             synchronized (this) {
-                out.writeInt(COMMAND_PREFIX);
-                out.writeUTF(command);
-                out.writeObject(arg);
-                out.flush();
+                writeCommand(command, arg);
                 in.expectReply();
             }
         } catch (IOException e) {
@@ -61,14 +58,19 @@ final class LauncherControl extends StreamingExecutionControl {
         }
     }
 
+    /** Writes one extension command (prefix, name, argument) and flushes; the caller holds the lock. */
+    private void writeCommand(String command, Object arg) throws IOException {
+        out.writeInt(COMMAND_PREFIX);
+        out.writeUTF(command);
+        out.writeObject(arg);
+        out.flush();
+    }
+
     @Override
     public Object extensionCommand(String command, Object arg) throws NotImplementedException {
         try {
             synchronized (this) {
-                out.writeInt(COMMAND_PREFIX);
-                out.writeUTF(command);
-                out.writeObject(arg);
-                out.flush();
+                writeCommand(command, arg);
                 int status = in.readInt();
                 switch (status) {
                     case RESULT_SUCCESS: return in.readObject();
