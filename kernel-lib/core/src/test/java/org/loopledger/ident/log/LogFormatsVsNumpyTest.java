@@ -9,6 +9,7 @@ import org.loopledger.testing.PythonOracle;
 
 import java.io.IOException;
 import java.nio.charset.StandardCharsets;
+import java.nio.file.Files;
 import java.nio.file.Path;
 import java.util.Map;
 
@@ -78,6 +79,12 @@ class LogFormatsVsNumpyTest {
             scipy.io.savemat(d + '/vec.mat', {'time_s': t, 'current_measured_A': cur, 'velocity_rad_s': vel.reshape(-1, 1), 'note': 'bench run 3'}, format='5')
             scipy.io.savemat(d + '/struct.mat', {'scope': {'iq_mA': 1000 * cur, 'v_rpm': vel * 60 / (2 * np.pi)}, 'sample_rate_Hz': 16000.0},
                              format='5', do_compression=True)
+            # 9 Level 5 .mat file of other stored types (float32, int16, int32 channels, saved as columns) and a cell array
+            scipy.io.savemat(d + '/types.mat', {'time_s': t.astype(np.float32), 'current_measured_A': np.round(cur * 1000).astype(np.int16),
+                             'velocity_rad_s': np.round(vel * 100).astype(np.int32), 'tags': np.array(['a', 'bc'], dtype=object)},
+                             format='5', oned_as='column')
+            mt = scipy.io.loadmat(d + '/types.mat')
+            out['mat_types'] = [mt[k].ravel().astype(float).tolist() for k in ('time_s', 'current_measured_A', 'velocity_rad_s')]
             m = scipy.io.loadmat(d + '/vec.mat')
             out['mat'] = [m['time_s'].ravel().tolist(), m['current_measured_A'].ravel().tolist(), m['velocity_rad_s'].ravel().tolist()]
             s = scipy.io.loadmat(d + '/struct.mat')['scope'][0, 0]
@@ -203,6 +210,21 @@ class LogFormatsVsNumpyTest {
         assertEquals(FS, s.sampleRateHz(), 0.0);
         assertClose(ref("mat_struct_si", 0), s.measuredCurrentA());
         assertClose(ref("mat_struct_si", 1), s.velocityRadPerS());
+    }
+
+    /** Our Level 5 reader on other stored types, against scipy.io.loadmat of the same file; a cut file is a clear error. */
+    @Test
+    void matOtherStoredTypesAndATruncatedFile() throws IOException {
+        DriveLog log = DriveLogReader.read(dir.resolve("types.mat"), OPT);
+        assertArrayEquals(ref("mat_types", 0), log.timeS(), 0.0);
+        assertArrayEquals(ref("mat_types", 1), log.measuredCurrentA(), 0.0);
+        assertArrayEquals(ref("mat_types", 2), log.velocityRadPerS(), 0.0);
+        assertTrue(log.metadata().get("tags").contains("cell array") && log.metadata().get("tags").contains("not read"), log.metadata().toString());
+        byte[] whole = Files.readAllBytes(dir.resolve("vec.mat"));
+        Path cut = dir.resolve("cut.mat");
+        Files.write(cut, java.util.Arrays.copyOf(whole, whole.length / 2));
+        IllegalArgumentException e = assertThrows(IllegalArgumentException.class, () -> DriveLogReader.read(cut, OPT));
+        assertTrue(e.getMessage().contains("cannot read as a Level 5 .mat file") && e.getMessage().contains("truncated"), e.getMessage());
     }
 
     @Test
