@@ -61,7 +61,8 @@ public final class Kernelspec {
     public static List<String> argvForThisJvm() {
         String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
         String cp = System.getProperty("java.class.path");
-        List<String> argv = new java.util.ArrayList<>(List.of(java, "-XX:TieredStopAtLevel=1", "-XX:+UseSerialGC"));
+        List<String> argv = new java.util.ArrayList<>(List.of(java));
+        argv.addAll(org.loopledger.kernel.session.SessionOptions.HOST_FLAGS);
         argv.addAll(org.loopledger.kernel.session.ClassDataArchives.useOptions(org.loopledger.kernel.session.ClassDataArchives.HOST));
         argv.addAll(List.of("-cp", absoluteClassPath(cp), "org.loopledger.cli.Main", "kernel", "{connection_file}"));
         return List.copyOf(argv);

@@ -49,8 +49,9 @@ class CliEndToEndTest {
     }
 
     static Result loopledger(String... args) throws IOException, InterruptedException {
-        List<String> cmd = new ArrayList<>(List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString(),
-                "-XX:TieredStopAtLevel=1", "-XX:+UseSerialGC", "-cp", System.getProperty("java.class.path"), "org.loopledger.cli.Main"));
+        List<String> cmd = new ArrayList<>(List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString()));
+        cmd.addAll(org.loopledger.kernel.session.SessionOptions.HOST_FLAGS);
+        cmd.addAll(List.of("-cp", System.getProperty("java.class.path"), "org.loopledger.cli.Main"));
         cmd.addAll(List.of(args));
         Path out = Files.createTempFile(dir, "out", ".txt"), err = Files.createTempFile(dir, "err", ".txt");
         Process p = new ProcessBuilder(cmd).directory(dir.toFile()).redirectOutput(out.toFile()).redirectError(err.toFile()).start();

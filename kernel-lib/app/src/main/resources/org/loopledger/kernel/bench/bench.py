@@ -4,7 +4,10 @@
 # between the running kernels; medians over all rounds. Once, in the last round: output throughput (seconds
 # from execute_request to status idle for a large print and a large display, with the characters received);
 # long cells (seconds per cell of N statements).
+# Then settled_rounds rounds that start both kernels, leave them idle for idle_s seconds (a user reading the
+# notebook before the first cell) and alternate N trivial cells between them, first cell included.
 # Input JSON: {"jupyter_path": ..., "cold_rounds": R, "rounds": N (trivial cells per kernel and round),
+#              "settled_rounds": S, "idle_s": I,
 #              "kernels": [{"name", "trivial", "throughput": {label: code}, "cells": {N: code}}, ...]}
 import json, os, sys, time
 inp = json.load(sys.stdin)
@@ -44,6 +47,15 @@ def start(name):
     kc.wait_for_ready(timeout=120)
     roundtrip(kc, trivial[name])
     return km, kc, time.perf_counter() - t0
+
+def start_idle(name):
+    """Starts a kernel and waits until it answers kernel_info; runs no cell."""
+    km = KernelManager(kernel_name=name)
+    km.start_kernel()
+    kc = km.client()
+    kc.start_channels()
+    kc.wait_for_ready(timeout=120)
+    return km, kc
 
 def stop(km, kc):
     kc.stop_channels()
@@ -88,7 +100,20 @@ for rnd in range(inp["cold_rounds"]):
     for n in order:
         stop(*running[n])
 
+settled = {n: [] for n in names}
+for rnd in range(inp.get("settled_rounds", 0)):
+    order = names if rnd % 2 == 0 else names[::-1]
+    running = {n: start_idle(n) for n in order}
+    time.sleep(inp["idle_s"])
+    for i in range(inp["rounds"]):
+        for n in (order if i % 2 == 0 else order[::-1]):
+            settled[n].append(roundtrip(running[n][1], trivial[n])[0] * 1000)
+    for n in order:
+        stop(*running[n])
+
 for n in names:
+    if settled[n]:
+        res[n].update({"settled_median_ms": median(settled[n]), "settled_samples": len(settled[n])})
     t = sorted(trips[n])
     res[n].update({"cold_start_s": median(cold[n]), "cold_starts_s": cold[n], "median_ms": median(t),
                    "p90_ms": t[int(len(t) * 0.9)], "min_ms": t[0], "samples": len(t)})

@@ -58,6 +58,8 @@ public final class CellSession implements AutoCloseable {
         }
     }
     private JShell shell;
+    /** JShell's store of compiled classes, where the classes of dropped snippets are forgotten ({@link CompiledClassCache}). */
+    private CompiledClassCache compiledClasses;
     private AgentConnection agent;
     /** The bundle of the last snippet's value when the agent rendered it as it ran ({@link AgentConnection#renderNext}). */
     private volatile MimeBundle prerendered;
@@ -104,6 +106,7 @@ public final class CellSession implements AutoCloseable {
                 .err(err)
                 .build();
         agent = launcher.connection();
+        compiledClasses = CompiledClassCache.of(shell);
         for (String imp : Preload.imports(CellSession.class.getClassLoader())) {
             for (SnippetEvent e : shell.eval(imp)) {
                 if (e.status() == Snippet.Status.REJECTED) shell.drop(e.snippet());
@@ -112,23 +115,65 @@ public final class CellSession implements AutoCloseable {
     }
 
     /**
-     * Compiles a few throw-away snippets while nobody waits, so that the first cell a user types runs fast.
-     * Warming used to be part of {@link #start}, which made every first cell wait for it (about a second on the
-     * 2-core build machine) whether or not the user was still typing; now the warm-up runs on its own thread
-     * and stops, between two snippets, as soon as the session is needed ({@link #stopWarmUp()}).
+     * Throw-away snippets for the warm-up, one of each kind a notebook cell is made of: expressions of numbers,
+     * strings, library and collection calls, a lambda, statements and a loop, a variable, a method and a class (each
+     * declared again with the same signature every round, so JShell keeps one class for each). Nothing prints or
+     * displays.
+     */
+    static final List<String> WARM_UP_SNIPPETS = List.of("1+1", "int ll$warm = 2;", "double ll$f(double x) { return x * ll$warm; }",
+            "ll$f(1.5)", "String.valueOf(ll$f(2)) + \" rad/s\"", "new ArrayList<Integer>().size()", "Math.sqrt(2.0) * Math.PI",
+            "ll$warm = 3;", "for (int ll$i = 0; ll$i < 3; ll$i++) { ll$warm += ll$i; }",
+            "List.of(1.0, 2.0).stream().mapToDouble(ll$d -> ll$d * ll$warm).sum()", "class Ll$Warm { double v() { return ll$warm; } }",
+            "new Ll$Warm().v()", "Units.class.getSimpleName()", "double[] ll$a = {1, 2, 3};", "ll$a.length");
+
+    /**
+     * How many warm-up snippets at most: about 160 evaluations bring the compiler close to the speed it reaches after
+     * a few hundred cells (measured on the 2-core build machine: {@code 1+1} right after the start takes about twice
+     * as long as after 150 cells), in about 3 s of one core.
+     */
+    static final int WARM_UP_BUDGET = 160;
+
+    /**
+     * Compiles throw-away snippets while nobody waits, so that the first cells a user types run fast: the JVM that
+     * compiles cells is slow until its JIT has seen javac at work, and no JIT state survives a start. The warm-up runs
+     * on its own thread, at most {@value #WARM_UP_BUDGET} snippets, and stops between two snippets as soon as the
+     * session is needed ({@link #stopWarmUp()}): a cell waits for at most the one snippet being compiled. It never
+     * resumes, so it costs nothing once the user is at work; when cells arrive at once (Run All, {@code loopledger
+     * run}) it stops at once.
      */
     private void startWarmUp() {
         Thread t = new Thread(() -> {
-            String[] snippets = {"1+1", "int ll$warm = 2;", "double ll$f(double x) { return x * ll$warm; }", "ll$f(1.5)",
-                    "String.valueOf(ll$f(2))", "new java.util.ArrayList<Integer>().size()", "1+1"};
+            // declarations live until the end, so that the snippets using them compile as a user's would
+            Map<String, Snippet> declared = new java.util.LinkedHashMap<>();
+            List<String> temporaries = new ArrayList<>();
             try {
-                for (String src : snippets) {
-                    if (warmUpStopped) break;
-                    for (SnippetEvent e : shell.eval(src)) shell.drop(e.snippet());
+                for (int i = 0; i < WARM_UP_BUDGET && !warmUpStopped; i++) {
+                    for (SnippetEvent e : shell.eval(WARM_UP_SNIPPETS.get(i % WARM_UP_SNIPPETS.size()))) {
+                        Snippet sn = e.snippet();
+                        if (e.causeSnippet() == null && e.status().isActive() && sn instanceof jdk.jshell.PersistentSnippet p
+                                && !CompiledClassCache.ownsItsClass(sn)) {
+                            declared.put(p.name(), sn);
+                        } else if (e.causeSnippet() == null || e.status() == Snippet.Status.OVERWRITTEN) {
+                            drop(sn);
+                            if (sn instanceof VarSnippet v && sn.subKind() == Snippet.SubKind.TEMP_VAR_EXPRESSION_SUBKIND) temporaries.add(v.name());
+                        }
+                    }
                 }
-                agent.forgetLast(List.of());
             } catch (Exception | Error e) {
                 // warm-up only
+            } finally {
+                for (Snippet sn : declared.values()) {
+                    try {
+                        drop(sn);
+                    } catch (RuntimeException e) {
+                        // already gone
+                    }
+                }
+                try {
+                    agent.forgetLast(temporaries); // the agent releases the values of the dropped temporaries
+                } catch (Exception | Error e) {
+                    // warm-up only
+                }
             }
         }, "loopledger-warm-up");
         t.setDaemon(true);
@@ -261,7 +306,7 @@ public final class CellSession implements AutoCloseable {
                 main = e;
                 origins.put(e.snippet().id(), new Tracebacks.Origin(label, snip.firstLine()));
             }
-            if (e.status() == Snippet.Status.OVERWRITTEN) shell.drop(e.snippet());
+            if (e.status() == Snippet.Status.OVERWRITTEN) drop(e.snippet());
         }
         if (main == null) return Step.NEXT;
         if (main.status() == Snippet.Status.REJECTED) {
@@ -315,12 +360,28 @@ public final class CellSession implements AutoCloseable {
         boolean temporary = s instanceof VarSnippet && s.subKind() == Snippet.SubKind.TEMP_VAR_EXPRESSION_SUBKIND;
         if (s.kind() == Snippet.Kind.STATEMENT || s.kind() == Snippet.Kind.EXPRESSION || temporary) {
             try {
-                shell.drop(s);
+                drop(s);
                 if (temporary) droppedTemporaries.add(((VarSnippet) s).name());
             } catch (IllegalArgumentException | IllegalStateException e) {
                 // already gone
             }
         }
+    }
+
+    /** Drops a snippet from JShell and its class from the compiler's view. */
+    private void drop(Snippet s) {
+        shell.drop(s);
+        compiledClasses.forget(s);
+    }
+
+    /** Whether the classes of dropped snippets are forgotten in this JVM ({@link CompiledClassCache#OPENS}). */
+    boolean forgetsDroppedClasses() {
+        return compiledClasses.available();
+    }
+
+    /** How many class files of earlier snippets the compiler sees, or -1 when unknown; for tests. */
+    int compiledClassCount() {
+        return compiledClasses.size();
     }
 
     private static boolean isExpression(Snippet s) {

@@ -18,6 +18,14 @@ public record SessionOptions(String classPath, List<String> agentVmOptions, bool
     }
 
     /**
+     * The flags of a JVM that compiles cells (kernel, {@code run}, {@code verify}; the launcher script repeats them):
+     * C1 only and the serial collector (cells are compiled by javac there, where C2 never pays back within a
+     * notebook run, and the serial collector keeps the footprint small), and the opening of JShell's package that
+     * lets the session forget the classes of dropped snippets ({@link CompiledClassCache}).
+     */
+    public static final List<String> HOST_FLAGS = List.of("-XX:TieredStopAtLevel=1", "-XX:+UseSerialGC", CompiledClassCache.OPENS);
+
+    /**
      * The agent JVM's own flags: the serial collector (one collector thread, the smallest footprint, no
      * concurrent threads competing with the cell on a small machine); full tiered compilation stays, since the
      * agent runs the numerical work of the cells.

@@ -24,8 +24,10 @@ class NotebookMetadataTest {
         PythonOracle.require("jupyter_client", "nbformat", "nbconvert");
         Path jupyterPath = TestKernelspec.install(dir.resolve("jupyter"));
         JsonArray argv = new JsonArray();
-        for (String a : List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString(), "-XX:TieredStopAtLevel=1",
-                "-XX:+UseSerialGC", "-cp", System.getProperty("java.class.path"), "org.loopledger.cli.Main")) argv.add(a);
+        List<String> command = new java.util.ArrayList<>(List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString()));
+        command.addAll(org.loopledger.kernel.session.SessionOptions.HOST_FLAGS);
+        command.addAll(List.of("-cp", System.getProperty("java.class.path"), "org.loopledger.cli.Main"));
+        for (String a : command) argv.add(a);
         JsonObject input = new JsonObject();
         input.addProperty("jupyter_path", jupyterPath.toString());
         input.addProperty("dir", dir.toString());

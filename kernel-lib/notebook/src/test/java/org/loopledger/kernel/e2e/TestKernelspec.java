@@ -15,8 +15,10 @@ final class TestKernelspec {
     /** Writes {@code dir/kernels/loopledger} and returns {@code dir}, to be used as JUPYTER_PATH. */
     static Path install(Path dir) throws IOException {
         String java = Path.of(System.getProperty("java.home"), "bin", "java").toString();
-        Kernelspec.write(dir.resolve("kernels"), List.of(java, "-XX:TieredStopAtLevel=1", "-XX:+UseSerialGC",
-                "-cp", System.getProperty("java.class.path"), "org.loopledger.cli.Main", "kernel", "{connection_file}"));
+        List<String> argv = new java.util.ArrayList<>(List.of(java));
+        argv.addAll(org.loopledger.kernel.session.SessionOptions.HOST_FLAGS);
+        argv.addAll(List.of("-cp", System.getProperty("java.class.path"), "org.loopledger.cli.Main", "kernel", "{connection_file}"));
+        Kernelspec.write(dir.resolve("kernels"), argv);
         return dir;
     }
 
