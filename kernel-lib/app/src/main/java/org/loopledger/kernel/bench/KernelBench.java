@@ -28,6 +28,9 @@ import java.util.concurrent.TimeUnit;
  *       user reads the notebook before running the first cell (ours warms its compiler meanwhile; the warm-up stops
  *       at the first request, so it never runs during a measured cell of either kernel). Reported beside the
  *       trivial cells right after the start, never instead of them;</li>
+ *   <li>the floor of any kernel built on JShell: a bare JShell in a fresh JVM with the kernel's flags ({@link JShellFloor},
+ *       {@value #FLOOR_ROUNDS} JVMs), its median evaluation of {@code 1+1} over evaluations 2-41, against ipykernel's
+ *       whole round trip;</li>
  *   <li>output throughput (issue 12): 8 MB of {@code print} (80,000 lines of 100 bytes) and one 4 MB
  *       HTML display (plain text would be shortened for display), seconds from the request to idle,
  *       against ipykernel doing the same;</li>
@@ -58,6 +61,7 @@ public final class KernelBench {
     static final double COLD_TARGET = 1.5;
     static final int SETTLED_ROUNDS = 3;
     static final int IDLE_SECONDS = 6;
+    static final int FLOOR_ROUNDS = 5;
 
     public static int run(PrintStream out) throws IOException, InterruptedException {
         Path dir = Files.createTempDirectory("loopledger-bench");
@@ -105,6 +109,9 @@ public final class KernelBench {
         out.printf("trivial cell after %d s idle (%d rounds, %d cells per kernel): median %.1f ms vs %.1f ms, ratio %.2fx (target <= %.1fx: %s)%n",
                 IDLE_SECONDS, SETTLED_ROUNDS, ll.get("settled_samples").getAsInt(), ll.get("settled_median_ms").getAsDouble(),
                 py.get("settled_median_ms").getAsDouble(), settledRatio, TRIVIAL_TARGET, verdict(settledRatio, TRIVIAL_TARGET));
+        double floor = jshellFloorMs();
+        out.printf("JShell alone (bare, in a fresh JVM with the kernel's flags, median of %d JVMs over evaluations 2-%d of 1+1): %.1f ms, %.2fx ipykernel's whole round trip%n",
+                FLOOR_ROUNDS, JShellFloor.CELLS, floor, floor / py.get("median_ms").getAsDouble());
         out.printf("ratio loopledger/ipykernel: 8 MB print %.1fx, 4 MB display %.1fx (characters received: print %d vs %d, display %d vs %d)%n",
                 seconds(ll, "print_8mb") / seconds(py, "print_8mb"), seconds(ll, "display_4mb") / seconds(py, "display_4mb"),
                 chars(ll, "print_8mb"), chars(py, "print_8mb"), chars(ll, "display_4mb"), chars(py, "display_4mb"));
@@ -117,6 +124,22 @@ public final class KernelBench {
             out.printf("long cell, %5d statements: %7.2f s, %8.1f statements/s, rate relative to %d statements %.2f%n", n, s, rate, CELL_SIZES[0], rate / firstRate);
         }
         return 0;
+    }
+
+    /** Median over {@value #FLOOR_ROUNDS} fresh JVMs of {@link JShellFloor}'s figure. */
+    static double jshellFloorMs() throws IOException, InterruptedException {
+        double[] ms = new double[FLOOR_ROUNDS];
+        for (int i = 0; i < FLOOR_ROUNDS; i++) {
+            List<String> cmd = new java.util.ArrayList<>(List.of(Path.of(System.getProperty("java.home"), "bin", "java").toString()));
+            cmd.addAll(org.loopledger.kernel.session.SessionOptions.HOST_FLAGS);
+            cmd.addAll(List.of("-cp", System.getProperty("java.class.path"), JShellFloor.class.getName()));
+            Process p = new ProcessBuilder(cmd).redirectError(ProcessBuilder.Redirect.INHERIT).start();
+            String text = new String(p.getInputStream().readAllBytes(), StandardCharsets.UTF_8).trim();
+            if (p.waitFor() != 0) throw new IOException("JShellFloor failed: " + text);
+            ms[i] = Double.parseDouble(text);
+        }
+        java.util.Arrays.sort(ms);
+        return ms[FLOOR_ROUNDS / 2];
     }
 
     /** "met" or by how much the target is missed; the ratio has been measured in this run. */

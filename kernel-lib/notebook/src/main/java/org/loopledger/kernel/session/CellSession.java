@@ -67,6 +67,9 @@ public final class CellSession implements AutoCloseable {
     private final List<String> droppedTemporaries = new ArrayList<>();
     private volatile Thread warmUpThread;
     private volatile boolean warmUpStopped;
+    /** Warm-up snippets run so far in this JVM's sessions (the JIT's state outlives a restart of the session). */
+    private volatile int warmUpDone;
+    private volatile boolean closed;
 
     private CellSession(SessionOptions options) {
         this.options = options;
@@ -98,9 +101,21 @@ public final class CellSession implements AutoCloseable {
                 new DisplayFrameSink(b -> listener.output(new CellOutput.Display(b))), new DisplayFrameSink(b -> prerendered = b), this::readLine);
         PrintStream out = new PrintStream(new Utf8StreamSink(t -> listener.output(new CellOutput.Stream(CellOutput.Stream.STDOUT, t))), true, StandardCharsets.UTF_8);
         PrintStream err = new PrintStream(new Utf8StreamSink(t -> listener.output(new CellOutput.Stream(CellOutput.Stream.STDERR, t))), true, StandardCharsets.UTF_8);
+        // the class path is set on the file manager once, not passed as --class-path: as an option it reached every
+        // javac run JShell makes (3-4 per snippet), and each one emptied the file manager's index of the class path,
+        // which the next run rebuilt over every folder of the launcher's jar (about 4 % of a trivial cell's time)
+        List<java.io.File> classPath = java.util.Arrays.stream(options.classPath().split(java.io.File.pathSeparator))
+                .filter(e -> !e.isEmpty()).map(java.io.File::new).toList();
         shell = JShell.builder()
                 .executionEngine(launcher, Map.of())
-                .compilerOptions("--class-path", options.classPath())
+                .fileManager(fm -> {
+                    try {
+                        fm.setLocation(javax.tools.StandardLocation.CLASS_PATH, classPath);
+                    } catch (java.io.IOException e) {
+                        throw new java.io.UncheckedIOException("the class path for compiling cells is not usable: " + options.classPath(), e);
+                    }
+                    return fm;
+                })
                 .in(JSHELL_INPUT)
                 .out(out)
                 .err(err)
@@ -127,52 +142,60 @@ public final class CellSession implements AutoCloseable {
             "new Ll$Warm().v()", "Units.class.getSimpleName()", "double[] ll$a = {1, 2, 3};", "ll$a.length");
 
     /**
-     * How many warm-up snippets at most: about 160 evaluations bring the compiler close to the speed it reaches after
-     * a few hundred cells (measured on the 2-core build machine: {@code 1+1} right after the start takes about twice
-     * as long as after 150 cells), in about 3 s of one core.
+     * How many warm-up snippets at most. Measured on the 2-core build machine (kernel flags, {@code 1+1} in-process):
+     * 18-21 ms in a fresh session's first 40 cells, 9-13 ms after 100-200 cells, 9 ms after 200-400; the warm-up
+     * ends about 9 s after the start (the first snippets are the slowest), using one core meanwhile.
      */
-    static final int WARM_UP_BUDGET = 160;
+    static final int WARM_UP_BUDGET = 300;
+
+    /**
+     * How long the session must be left alone (after the start, or after a cell) before the warm-up compiles anything.
+     * A client that sends cells one after the other (Run All, {@code loopledger run}, a benchmark) then never waits for
+     * a warm-up snippet: right after the start those are the slowest of all (100-250 ms, the compiler still
+     * interpreted).
+     */
+    static final long WARM_UP_DELAY_MS = 400;
+    private final Object warmUpLock = new Object();
 
     /**
      * Compiles throw-away snippets while nobody waits, so that the first cells a user types run fast: the JVM that
      * compiles cells is slow until its JIT has seen javac at work, and no JIT state survives a start. The warm-up runs
-     * on its own thread, at most {@value #WARM_UP_BUDGET} snippets, and stops between two snippets as soon as the
-     * session is needed ({@link #stopWarmUp()}): a cell waits for at most the one snippet being compiled. It never
-     * resumes, so it costs nothing once the user is at work; when cells arrive at once (Run All, {@code loopledger
-     * run}) it stops at once.
+     * on its own thread after the start and after each cell, but only once the session has been left alone for
+     * {@value #WARM_UP_DELAY_MS} ms, and stops between two snippets as soon as the session is needed again
+     * ({@link #stopWarmUp()}): a cell waits for at most the one snippet being compiled. Cells sent one after the other
+     * (Run All, {@code loopledger run}) never start it. At most {@value #WARM_UP_BUDGET} snippets are run in all, so it
+     * costs nothing once they are spent.
      */
     private void startWarmUp() {
+        if (closed || warmUpDone >= WARM_UP_BUDGET) return;
+        warmUpStopped = false;
         Thread t = new Thread(() -> {
-            // declarations live until the end, so that the snippets using them compile as a user's would
-            Map<String, Snippet> declared = new java.util.LinkedHashMap<>();
-            List<String> temporaries = new ArrayList<>();
+            java.util.Set<String> before = null;
             try {
-                for (int i = 0; i < WARM_UP_BUDGET && !warmUpStopped; i++) {
-                    for (SnippetEvent e : shell.eval(WARM_UP_SNIPPETS.get(i % WARM_UP_SNIPPETS.size()))) {
-                        Snippet sn = e.snippet();
-                        if (e.causeSnippet() == null && e.status().isActive() && sn instanceof jdk.jshell.PersistentSnippet p
-                                && !CompiledClassCache.ownsItsClass(sn)) {
-                            declared.put(p.name(), sn);
-                        } else if (e.causeSnippet() == null || e.status() == Snippet.Status.OVERWRITTEN) {
-                            drop(sn);
-                            if (sn instanceof VarSnippet v && sn.subKind() == Snippet.SubKind.TEMP_VAR_EXPRESSION_SUBKIND) temporaries.add(v.name());
-                        }
-                    }
+                long until = System.nanoTime() + WARM_UP_DELAY_MS * 1_000_000L;
+                synchronized (warmUpLock) {
+                    long left;
+                    while (!warmUpStopped && (left = until - System.nanoTime()) > 0) warmUpLock.wait(Math.max(1, left / 1_000_000L));
+                }
+                if (warmUpStopped) return;
+                before = shell.snippets().map(Snippet::id).collect(java.util.stream.Collectors.toSet());
+                // the path of a cell: split, compile, run in the agent, render the value there, drop what is transient
+                for (int i = 0; warmUpDone < WARM_UP_BUDGET && !warmUpStopped; i++) {
+                    runSnippets(WARM_UP_SNIPPETS.get(i % WARM_UP_SNIPPETS.size()), "warm-up", OutputListener.IGNORE);
+                    warmUpDone++;
                 }
             } catch (Exception | Error e) {
                 // warm-up only
             } finally {
-                for (Snippet sn : declared.values()) {
+                if (before != null) {
+                    // what the warm-up declared (no cell runs meanwhile, so every new snippet is the warm-up's)
+                    java.util.Set<String> earlier = before;
                     try {
-                        drop(sn);
-                    } catch (RuntimeException e) {
-                        // already gone
+                        shell.snippets().filter(sn -> !earlier.contains(sn.id()) && shell.status(sn).isActive()).toList().forEach(this::drop);
+                        agent.forgetLast(releasing());
+                    } catch (Exception | Error e) {
+                        // warm-up only
                     }
-                }
-                try {
-                    agent.forgetLast(temporaries); // the agent releases the values of the dropped temporaries
-                } catch (Exception | Error e) {
-                    // warm-up only
                 }
             }
         }, "loopledger-warm-up");
@@ -187,6 +210,9 @@ public final class CellSession implements AutoCloseable {
      */
     public void stopWarmUp() {
         warmUpStopped = true;
+        synchronized (warmUpLock) {
+            warmUpLock.notifyAll();
+        }
         Thread t = warmUpThread;
         if (t == null || t == Thread.currentThread()) return;
         boolean interrupted = false;
@@ -252,6 +278,7 @@ public final class CellSession implements AutoCloseable {
             turn.over = true;
             input = InputTurn.closed();
         }
+        if (options.warmUp()) startWarmUp(); // resumes after a pause, if the budget is not spent
         return collector.result();
     }
 
@@ -377,6 +404,11 @@ public final class CellSession implements AutoCloseable {
     /** Whether the classes of dropped snippets are forgotten in this JVM ({@link CompiledClassCache#OPENS}). */
     boolean forgetsDroppedClasses() {
         return compiledClasses.available();
+    }
+
+    /** Warm-up snippets run so far; for tests. */
+    int warmUpSnippetsRun() {
+        return warmUpDone;
     }
 
     /** How many class files of earlier snippets the compiler sees, or -1 when unknown; for tests. */
@@ -581,6 +613,7 @@ public final class CellSession implements AutoCloseable {
 
     @Override
     public void close() {
+        closed = true;
         input.over = true;
         stopWarmUp();
         try {
