@@ -67,7 +67,7 @@ public final class CellSession implements AutoCloseable {
     private final List<String> droppedTemporaries = new ArrayList<>();
     private volatile Thread warmUpThread;
     private volatile boolean warmUpStopped;
-    /** Warm-up snippets run so far in this JVM's sessions (the JIT's state outlives a restart of the session). */
+    /** Warm-up snippets run so far. */
     private volatile int warmUpDone;
     private volatile boolean closed;
 
@@ -149,10 +149,9 @@ public final class CellSession implements AutoCloseable {
     static final int WARM_UP_BUDGET = 300;
 
     /**
-     * How long the session must be left alone (after the start, or after a cell) before the warm-up compiles anything.
-     * A client that sends cells one after the other (Run All, {@code loopledger run}, a benchmark) then never waits for
-     * a warm-up snippet: right after the start those are the slowest of all (100-250 ms, the compiler still
-     * interpreted).
+     * How long the session must be left alone after the start before the warm-up compiles anything. A client that
+     * sends a cell at once (Run All, {@code loopledger run}, a benchmark) then never waits for a warm-up snippet: right
+     * after the start those are the slowest of all (100-250 ms, the compiler still interpreted).
      */
     static final long WARM_UP_DELAY_MS = 400;
     private final Object warmUpLock = new Object();
@@ -160,11 +159,14 @@ public final class CellSession implements AutoCloseable {
     /**
      * Compiles throw-away snippets while nobody waits, so that the first cells a user types run fast: the JVM that
      * compiles cells is slow until its JIT has seen javac at work, and no JIT state survives a start. The warm-up runs
-     * on its own thread after the start and after each cell, but only once the session has been left alone for
-     * {@value #WARM_UP_DELAY_MS} ms, and stops between two snippets as soon as the session is needed again
-     * ({@link #stopWarmUp()}): a cell waits for at most the one snippet being compiled. Cells sent one after the other
-     * (Run All, {@code loopledger run}) never start it. At most {@value #WARM_UP_BUDGET} snippets are run in all, so it
-     * costs nothing once they are spent.
+     * on its own thread after the start, but only once the session has been left alone for {@value #WARM_UP_DELAY_MS}
+     * ms, and stops for good between two snippets as soon as the session is first needed ({@link #stopWarmUp()}): a
+     * cell waits for at most the one snippet being compiled. A client that sends a cell at once (Run All,
+     * {@code loopledger run}, a benchmark) never starts it. At most {@value #WARM_UP_BUDGET} snippets.
+     *
+     * <p>It does not resume after a cell: a version that did took a core for seconds after the first cell, which
+     * slowed whatever started next on a 2-core machine (ipykernel's cold start in {@code bench kernel} doubled when it
+     * started right after ours), and a user at work gains little from it.
      */
     private void startWarmUp() {
         if (closed || warmUpDone >= WARM_UP_BUDGET) return;
@@ -278,7 +280,6 @@ public final class CellSession implements AutoCloseable {
             turn.over = true;
             input = InputTurn.closed();
         }
-        if (options.warmUp()) startWarmUp(); // resumes after a pause, if the budget is not spent
         return collector.result();
     }
 
