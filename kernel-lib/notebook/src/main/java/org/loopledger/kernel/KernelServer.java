@@ -38,7 +38,14 @@ public final class KernelServer implements AutoCloseable {
 
     private KernelServer(ConnectionInfo connection, SessionOptions options) {
         this.connection = connection;
-        this.session = CompletableFuture.supplyAsync(() -> CellSession.start(options));
+        this.session = CompletableFuture.supplyAsync(() -> {
+            CellSession s = CellSession.start(options);
+            if (!s.forgetsDroppedClasses()) {
+                KernelLog.warn("this JVM was started without " + SessionOptions.OPEN_JSHELL
+                        + ": cells will get slower as the session grows; reinstall the kernelspec (./loopledger install --user)");
+            }
+            return s;
+        });
     }
 
     /** Binds the sockets and starts serving; the session starts in the background meanwhile. */

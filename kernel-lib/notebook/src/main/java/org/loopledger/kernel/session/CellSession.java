@@ -402,8 +402,11 @@ public final class CellSession implements AutoCloseable {
         compiledClasses.forget(s);
     }
 
-    /** Whether the classes of dropped snippets are forgotten in this JVM ({@link CompiledClassCache#OPENS}). */
-    boolean forgetsDroppedClasses() {
+    /**
+     * Whether the classes of dropped snippets are forgotten in this JVM: false when it was started without
+     * {@link SessionOptions#HOST_FLAGS}' opening of JShell's package, and then cells get slower as the session grows.
+     */
+    public boolean forgetsDroppedClasses() {
         return compiledClasses.available();
     }
 

@@ -25,6 +25,9 @@ public record SessionOptions(String classPath, List<String> agentVmOptions, bool
      */
     public static final List<String> HOST_FLAGS = List.of("-XX:TieredStopAtLevel=1", "-XX:+UseSerialGC", CompiledClassCache.OPENS);
 
+    /** The one of {@link #HOST_FLAGS} a session needs to forget the classes of dropped snippets. */
+    public static final String OPEN_JSHELL = CompiledClassCache.OPENS;
+
     /**
      * The agent JVM's own flags: the serial collector (one collector thread, the smallest footprint, no
      * concurrent threads competing with the cell on a small machine); full tiered compilation stays, since the

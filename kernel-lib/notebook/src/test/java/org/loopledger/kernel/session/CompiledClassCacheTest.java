@@ -39,6 +39,21 @@ class CompiledClassCacheTest {
         assertTrue(session.forgetsDroppedClasses(), "run the JVM with " + CompiledClassCache.OPENS + " (SessionOptions.HOST_FLAGS)");
     }
 
+    /** Without the flag nothing is forgotten, and nothing fails: the kernel then logs a warning naming the fix. */
+    @Test
+    void withoutTheFlagTheStoreIsLeftAlone() throws Exception {
+        String javaBinary = java.nio.file.Path.of(System.getProperty("java.home"), "bin", "java").toString();
+        for (boolean opened : new boolean[]{true, false}) {
+            List<String> cmd = new java.util.ArrayList<>(List.of(javaBinary));
+            if (opened) cmd.add(SessionOptions.OPEN_JSHELL);
+            cmd.addAll(List.of("-cp", System.getProperty("java.class.path"), CompiledClassCacheProbe.class.getName()));
+            Process p = new ProcessBuilder(cmd).redirectErrorStream(true).start();
+            String out = new String(p.getInputStream().readAllBytes(), java.nio.charset.StandardCharsets.UTF_8).trim();
+            assertEquals(0, p.waitFor(), out);
+            assertEquals(Boolean.toString(opened), out);
+        }
+    }
+
     /** Before: every evaluated expression left one class behind (300 cells, 300 more classes). */
     @Test
     void repeatedCellsLeaveNoClassesBehind() {
