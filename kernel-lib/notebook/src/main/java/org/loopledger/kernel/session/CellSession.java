@@ -69,7 +69,6 @@ public final class CellSession implements AutoCloseable {
     private volatile boolean warmUpStopped;
     /** Warm-up snippets run so far. */
     private volatile int warmUpDone;
-    private volatile boolean closed;
 
     private CellSession(SessionOptions options) {
         this.options = options;
@@ -169,8 +168,6 @@ public final class CellSession implements AutoCloseable {
      * started right after ours), and a user at work gains little from it.
      */
     private void startWarmUp() {
-        if (closed || warmUpDone >= WARM_UP_BUDGET) return;
-        warmUpStopped = false;
         Thread t = new Thread(() -> {
             java.util.Set<String> before = null;
             try {
@@ -617,7 +614,6 @@ public final class CellSession implements AutoCloseable {
 
     @Override
     public void close() {
-        closed = true;
         input.over = true;
         stopWarmUp();
         try {

@@ -5,7 +5,6 @@ import jdk.jshell.Snippet;
 
 import java.lang.reflect.Field;
 import java.lang.reflect.Method;
-import java.util.Map;
 import java.util.NavigableMap;
 
 /**
@@ -27,14 +26,11 @@ import java.util.NavigableMap;
  * too. The agent JVM keeps the loaded classes; only the compiler stops seeing them.
  *
  * <p>How: JShell has no API for this, so the store is reached by reflection, which needs the host JVM to run with
- * {@value #OPENS}. The launcher, the kernelspec and the build pass it. Without it (or on a JDK whose JShell is
+ * {@value SessionOptions#OPEN_JSHELL}. The launcher, the kernelspec and the build pass it. Without it (or on a JDK whose JShell is
  * built differently) nothing is forgotten, {@link #available()} is false, and cells run as before, only slower in
  * long sessions.
  */
 final class CompiledClassCache {
-    /** The JVM option that lets this class reach JShell's store. */
-    static final String OPENS = "--add-opens=jdk.jshell/jdk.jshell=ALL-UNNAMED";
-
     private final NavigableMap<String, ?> classFiles;
     private final Method classFullName;
 
@@ -100,8 +96,4 @@ final class CompiledClassCache {
         classFiles.subMap(name + "$", true, name + "%", false).clear();
     }
 
-    /** The entries, for tests. */
-    Map<String, ?> view() {
-        return classFiles == null ? Map.of() : java.util.Collections.unmodifiableMap(classFiles);
-    }
 }

@@ -18,15 +18,18 @@ public record SessionOptions(String classPath, List<String> agentVmOptions, bool
     }
 
     /**
+     * The one of {@link #HOST_FLAGS} that lets a session reach JShell's store of compiled classes, to forget the classes
+     * of dropped snippets ({@link CompiledClassCache}).
+     */
+    public static final String OPEN_JSHELL = "--add-opens=jdk.jshell/jdk.jshell=ALL-UNNAMED";
+
+    /**
      * The flags of a JVM that compiles cells (kernel, {@code run}, {@code verify}; the launcher script repeats them):
      * C1 only and the serial collector (cells are compiled by javac there, where C2 never pays back within a
      * notebook run, and the serial collector keeps the footprint small), and the opening of JShell's package that
      * lets the session forget the classes of dropped snippets ({@link CompiledClassCache}).
      */
-    public static final List<String> HOST_FLAGS = List.of("-XX:TieredStopAtLevel=1", "-XX:+UseSerialGC", CompiledClassCache.OPENS);
-
-    /** The one of {@link #HOST_FLAGS} a session needs to forget the classes of dropped snippets. */
-    public static final String OPEN_JSHELL = CompiledClassCache.OPENS;
+    public static final List<String> HOST_FLAGS = List.of("-XX:TieredStopAtLevel=1", "-XX:+UseSerialGC", SessionOptions.OPEN_JSHELL);
 
     /**
      * The agent JVM's own flags: the serial collector (one collector thread, the smallest footprint, no

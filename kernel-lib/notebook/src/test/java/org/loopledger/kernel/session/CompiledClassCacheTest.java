@@ -36,7 +36,7 @@ class CompiledClassCacheTest {
 
     @Test
     void theBuildOpensJShellToTheSession() {
-        assertTrue(session.forgetsDroppedClasses(), "run the JVM with " + CompiledClassCache.OPENS + " (SessionOptions.HOST_FLAGS)");
+        assertTrue(session.forgetsDroppedClasses(), "run the JVM with " + SessionOptions.OPEN_JSHELL + " (SessionOptions.HOST_FLAGS)");
     }
 
     /** Without the flag nothing is forgotten, and nothing fails: the kernel then logs a warning naming the fix. */
