@@ -54,6 +54,14 @@ class MarginsTableTest {
 
     static double number(String cell) { return Double.parseDouble(cell.split(" ")[0]); }
 
+    /** The type-1 loop's response at {@code w} as a measurement would give it: the same values, no model behind them. */
+    private static Frf measuredType1(double[] w) {
+        Frf model = Frf.ofModel(TYPE1, w);
+        double[] re = new double[w.length], im = new double[w.length];
+        for (int i = 0; i < w.length; i++) { re[i] = model.realAt(i); im[i] = model.imagAt(i); }
+        return Frf.ofParts(w, re, im);
+    }
+
     @Test
     void everyLoopOfEveryLoadCaseInOneTableWithItsFigures() {
         MarginsTable t = MarginsTable.of(twoCases());
@@ -117,11 +125,7 @@ class MarginsTableTest {
     @Test
     void measuredDataWithoutACrossingInBandIsNeverCalledMet() {
         // The type-1 loop measured only between 1 and 10 rad/s: |L| < 1 there, so its crossover (0.786 rad/s) is out of band.
-        double[] w = FrequencyGrid.logRadPerS(1, 10, 200);
-        Frf model = Frf.ofModel(TYPE1, w);
-        double[] re = new double[w.length], im = new double[w.length];
-        for (int i = 0; i < w.length; i++) { re[i] = model.realAt(i); im[i] = model.imagAt(i); }
-        Frf measured = Frf.ofParts(w, re, im);
+        Frf measured = measuredType1(FrequencyGrid.logRadPerS(1, 10, 200));
         MarginsTable t = MarginsTable.builder().row("case", "loop", measured).spec(Spec.builder().minPhaseMarginDeg(45).build()).build();
         assertEquals("none in band", t.worstPhaseMargin().valueText());
         assertTrue(t.worstPhaseMargin().verdict().contains("not checked"), t.worstPhaseMargin().verdict());
@@ -133,11 +137,7 @@ class MarginsTableTest {
     void aWarningSharedByRowsIsWrittenOnceNamingEveryRow() {
         // The same measured type-1 loop (1/(s(s+1)), 0.1 to 10 rad/s) as two load cases: the analysis estimates its
         // integrator from the slope on both rows, with the same message; the table says it once for both.
-        double[] w = FrequencyGrid.logRadPerS(0.1, 10, 300);
-        Frf model = Frf.ofModel(TYPE1, w);
-        double[] re = new double[w.length], im = new double[w.length];
-        for (int i = 0; i < w.length; i++) { re[i] = model.realAt(i); im[i] = model.imagAt(i); }
-        Frf measured = Frf.ofParts(w, re, im);
+        Frf measured = measuredType1(FrequencyGrid.logRadPerS(0.1, 10, 300));
         MarginsTable t = MarginsTable.builder().row("first", "loop", measured).row("second", "loop", measured).build();
         String text = t.toString();
         List<String> lines = text.lines().filter(l -> l.contains("net integrators estimated")).toList();
@@ -149,12 +149,9 @@ class MarginsTableTest {
     void anMsPeakAtTheEdgeOfTheMeasuredBandIsNotCalledMet() {
         // |S| of the type-1 loop rises with frequency below its peak (|S| ~ w at low w, peak near 1 rad/s by the definition
         // search above), so measured from 0.05 to 0.4 rad/s its largest value sits at the upper band edge.
-        double[] w = FrequencyGrid.logRadPerS(0.05, 0.4, 100);
-        Frf model = Frf.ofModel(TYPE1, w);
-        double[] re = new double[w.length], im = new double[w.length];
-        for (int i = 0; i < w.length; i++) { re[i] = model.realAt(i); im[i] = model.imagAt(i); }
+        Frf measured = measuredType1(FrequencyGrid.logRadPerS(0.05, 0.4, 100));
         assertTrue(msByDefinition(TYPE1)[1] * 2 * Math.PI > 0.4, "the true peak lies above the band");
-        MarginsTable t = MarginsTable.builder().row("case", "loop", Frf.ofParts(w, re, im)).spec(Spec.builder().maxSensitivityPeak(2).build()).build();
+        MarginsTable t = MarginsTable.builder().row("case", "loop", measured).spec(Spec.builder().maxSensitivityPeak(2).build()).build();
         String v = t.worstSensitivityPeak().verdict();
         assertFalse(v.startsWith("meets"), v);
         assertTrue(v.contains("edge of the analysed band"), v);

@@ -155,6 +155,13 @@ class LogFormatsVsNumpyTest {
         assertTrue(log.dataset().isPresent() && log.dataset().get().sha256().length() == 64);
     }
 
+    /** Time, measured current and velocity equal the reference's columns 0, 1 and 2 bit for bit. */
+    static void assertColumnsExactly(String key, DriveLog log) {
+        assertArrayEquals(ref(key, 0), log.timeS(), 0.0);
+        assertArrayEquals(ref(key, 1), log.measuredCurrentA(), 0.0);
+        assertArrayEquals(ref(key, 2), log.velocityRadPerS(), 0.0);
+    }
+
     static void assertClose(double[] expected, double[] actual) {
         assertEquals(expected.length, actual.length);
         for (int i = 0; i < expected.length; i++) assertEquals(expected[i], actual[i], 1e-15 * Math.abs(expected[i]), "index " + i);
@@ -201,9 +208,7 @@ class LogFormatsVsNumpyTest {
     @Test
     void matV5VectorsAndACompressedStructOfLabUnits() throws IOException {
         DriveLog log = DriveLogReader.read(dir.resolve("vec.mat"), OPT);
-        assertArrayEquals(ref("mat", 0), log.timeS(), 0.0);
-        assertArrayEquals(ref("mat", 1), log.measuredCurrentA(), 0.0);
-        assertArrayEquals(ref("mat", 2), log.velocityRadPerS(), 0.0);
+        assertColumnsExactly("mat", log);
         assertEquals("bench run 3", log.metadata().get("note"));
         DriveLog s = DriveLogReader.read(dir.resolve("struct.mat"), ColumnMap.of()
                 .column("iq_mA", Quantity.CURRENT_MEASURED, LogUnit.milliamperes()).column("v_rpm", Quantity.VELOCITY, LogUnit.rpm()), OPT);
@@ -216,9 +221,7 @@ class LogFormatsVsNumpyTest {
     @Test
     void matOtherStoredTypesAndATruncatedFile() throws IOException {
         DriveLog log = DriveLogReader.read(dir.resolve("types.mat"), OPT);
-        assertArrayEquals(ref("mat_types", 0), log.timeS(), 0.0);
-        assertArrayEquals(ref("mat_types", 1), log.measuredCurrentA(), 0.0);
-        assertArrayEquals(ref("mat_types", 2), log.velocityRadPerS(), 0.0);
+        assertColumnsExactly("mat_types", log);
         assertTrue(log.metadata().get("tags").contains("cell array") && log.metadata().get("tags").contains("not read"), log.metadata().toString());
         byte[] whole = Files.readAllBytes(dir.resolve("vec.mat"));
         Path cut = dir.resolve("cut.mat");
